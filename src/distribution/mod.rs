@@ -1,0 +1,11 @@
+//! The univariate distributions the conjugate families hand out: the marginal
+//! of each unknown, and the predictive distribution of future data.
+
+pub mod continuous;
+pub mod discrete;
+mod guess;
+pub mod interval;
+
+pub use continuous::Continuous;
+pub use discrete::Discrete;
+pub use interval::Interval;
