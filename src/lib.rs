@@ -1,7 +1,11 @@
 //! Priorwright: eliciting conjugate prior distributions.
 //!
-//! The core (`family`, `distribution`, `numeric`, `analysis`) knows nothing of
-//! the GUI and builds with `--no-default-features`.
+//! The core (`family`, `distribution`, `numeric`, `analysis`, `error`) knows
+//! nothing of the GUI and builds with `--no-default-features`.
 
+pub mod analysis;
+pub mod cli;
 pub mod distribution;
+pub mod error;
+pub mod family;
 pub mod numeric;

@@ -1,0 +1,3 @@
+//! Summaries of priors, posteriors and predictive distributions.
+
+pub mod summary;
