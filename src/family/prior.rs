@@ -132,7 +132,7 @@ fn prior_keys(family: &str) -> Option<(&'static [&'static str], &'static str)> {
 }
 
 /// A prior given either way: conventional keys, or pseudo-observations.
-fn either(keys: &Keys, conventional: &[&str], pseudo: &[&str], needed: &str) -> Result<bool> {
+fn either(keys: &Keys, conventional: &[&str], pseudo: &[&str]) -> Result<bool> {
     let conv = conventional.iter().any(|k| keys.has(k));
     let pse = pseudo.iter().any(|k| keys.has(k));
     if conv && pse {
@@ -143,7 +143,6 @@ fn either(keys: &Keys, conventional: &[&str], pseudo: &[&str], needed: &str) -> 
             pseudo.join(",")
         )));
     }
-    let _ = needed;
     Ok(pse)
 }
 
@@ -160,7 +159,7 @@ impl Prior {
         let num = |key: &str| k.required(key, needed);
         Ok(match family {
             "beta-binomial" | "gamma-poisson" | "gamma-exponential" => {
-                let pseudo = either(&k, &["alpha", "beta"], &["mean", "ess"], needed)?;
+                let pseudo = either(&k, &["alpha", "beta"], &["mean", "ess"])?;
                 let (a, b) = if pseudo {
                     (num("mean")?, num("ess")?)
                 } else {
@@ -180,7 +179,7 @@ impl Prior {
                 }
             }
             "normal-known-variance" => {
-                let pseudo = either(&k, &["mu0", "kappa0"], &["mean", "ess"], needed)?;
+                let pseudo = either(&k, &["mu0", "kappa0"], &["mean", "ess"])?;
                 let sigma = num("sigma")?;
                 let (m, n) = if pseudo {
                     (num("mean")?, num("ess")?)
@@ -194,7 +193,6 @@ impl Prior {
                     &k,
                     &["mu0", "kappa0", "alpha0", "beta0"],
                     &["mean", "ess", "variance", "variance_ess"],
-                    needed,
                 )?;
                 Self::NormalInverseGamma(if pseudo {
                     NormalInverseGamma::from_pseudo(
@@ -213,7 +211,7 @@ impl Prior {
                 })
             }
             "dirichlet-multinomial" => {
-                let pseudo = either(&k, &["alpha"], &["mean", "ess"], needed)?;
+                let pseudo = either(&k, &["alpha"], &["mean", "ess"])?;
                 let names = k.names("names");
                 Self::DirichletMultinomial(if pseudo {
                     DirichletMultinomial::from_mean_ess(
@@ -226,7 +224,7 @@ impl Prior {
                 })
             }
             _ => {
-                let pseudo = either(&k, &["alpha", "beta"], &["mean", "ess"], needed)?;
+                let pseudo = either(&k, &["alpha", "beta"], &["mean", "ess"])?;
                 let mu = k.number("mu")?;
                 Self::InverseGammaVariance(if pseudo {
                     InverseGammaVariance::from_mean_ess(num("mean")?, num("ess")?, mu)?

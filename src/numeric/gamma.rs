@@ -200,7 +200,7 @@ mod tests {
         assert!((ln_gamma(1.0)).abs() < 1e-14);
         assert!((ln_gamma(2.0)).abs() < 1e-14);
         // mpmath.loggamma(1e7) at 30 digits.
-        assert!(rel(ln_gamma(1e7), 151_180_949.369_473_914) < 1e-15);
+        assert!(rel(ln_gamma(1e7), 151_180_949.369_473_9) < 1e-15);
     }
 
     #[test]
