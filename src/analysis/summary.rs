@@ -1,6 +1,7 @@
 //! What `describe`, `update` and `predict` report, computed once here so the
 //! CLI and the GUI show the same numbers.
 
+use crate::distribution::interval::Shape;
 use crate::distribution::{Continuous, Discrete, Interval};
 use crate::error::{self, Error, Result};
 use crate::family::{Marginal, Predictive};
@@ -107,16 +108,36 @@ pub fn summarize(marginals: &[Marginal], opts: &SummaryOptions) -> Result<Vec<Pa
                     CdfPoint { x: *x, cdf, sf }
                 })
                 .collect();
+            // Each search starts from the nearest quantile already found.
+            let mut known: Vec<(f64, f64)> = Vec::new();
+            let mut find = |p: f64| {
+                let hint = known
+                    .iter()
+                    .min_by(|a, b| (a.0 - p).abs().total_cmp(&(b.0 - p).abs()))
+                    .map(|k| k.1);
+                let x = d.quantile_near(p, hint);
+                known.push((p, x));
+                x
+            };
+            let median = find(0.5);
+            let quantiles = opts.probs.iter().map(|p| (*p, find(*p))).collect();
+            let tail = 0.5 * (1.0 - opts.level);
+            let central = Interval::single(opts.level, find(tail), find(1.0 - tail));
+            let hpd = if d.shape() == Shape::Symmetric {
+                central.clone()
+            } else {
+                d.hpd_interval_near(opts.level, &central)
+            };
             ParameterSummary {
                 name: m.name.clone(),
                 distribution: *d,
                 mean: d.mean(),
                 sd: d.sd(),
                 mode: d.mode(),
-                median: d.median(),
-                quantiles: opts.probs.iter().map(|p| (*p, d.quantile(*p))).collect(),
-                central: d.central_interval(opts.level),
-                hpd: d.hpd_interval(opts.level),
+                median,
+                quantiles,
+                central,
+                hpd,
                 cdf,
             }
         })

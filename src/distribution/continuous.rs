@@ -8,10 +8,11 @@
 use super::guess;
 use super::interval::{self, Interval, Shape};
 use crate::numeric::gamma::{
-    beta_kernel, ln_beta, ln_gamma, ln_gamma_ratio, poisson_kernel, stirling_correction_series,
+    BetaKernel, PoissonKernel, beta_kernel, ln_beta, ln_gamma, ln_gamma_ratio, poisson_kernel,
+    stirling_correction_series,
 };
-use crate::numeric::incomplete::{beta_i, gamma_pq};
-use crate::numeric::solve::increasing_root;
+use crate::numeric::incomplete::{beta_i, beta_i_with, gamma_pq, gamma_pq_with};
+use crate::numeric::solve::increasing_root_halley;
 use std::f64::consts::PI;
 
 /// Relative tolerance on log x in the quantile solvers.
@@ -41,10 +42,15 @@ pub enum Continuous {
     Lomax { shape: f64, scale: f64 },
 }
 
-/// Solves tail(x) = target for x > 0, where `tail` returns (tail probability,
-/// density) and the tail is the lower one (`upper == false`) or the upper one.
+/// What a tail solver needs at x: the tail probability, the density and the
+/// slope of the log-density, d ln f / dx.
+type TailPoint = (f64, f64, f64);
+
+/// Solves tail(x) = target for x > 0; the tail is the lower one (`upper ==
+/// false`) or the upper one. Halley steps on g(u) = ±(ln tail(e^u) − ln target):
+/// with r = f x / tail, g′ = r and g″ = r (1 + x (ln f)′) ∓ r².
 fn invert_positive(
-    tail: impl Fn(f64) -> (f64, f64),
+    tail: impl Fn(f64) -> TailPoint,
     upper: bool,
     target: f64,
     guess: f64,
@@ -53,13 +59,14 @@ fn invert_positive(
     let ln_target = target.ln();
     let g = |u: f64| {
         let x = u.exp();
-        let (t, f) = tail(x);
+        let (t, f, s) = tail(x);
         let lt = t.ln();
-        let slope = f * x / t;
+        let r = f * x / t;
+        let curve = r * (1.0 + x * s);
         if upper {
-            (ln_target - lt, slope)
+            (ln_target - lt, r, curve + r * r)
         } else {
-            (lt - ln_target, slope)
+            (lt - ln_target, r, curve - r * r)
         }
     };
     let start = if guess > 0.0 && guess.is_finite() {
@@ -67,7 +74,7 @@ fn invert_positive(
     } else {
         0.0_f64.min(ln_hi)
     };
-    let u = increasing_root(g, LN_MIN, ln_hi, start, QUANTILE_TOL);
+    let u = increasing_root_halley(g, LN_MIN, ln_hi, start, QUANTILE_TOL);
     if u <= LN_MIN + 1e-6 {
         // The root lies below the smallest double.
         0.0
@@ -95,7 +102,7 @@ fn gamma_pq_ln(a: f64, ln_z: f64, z: f64) -> (f64, f64) {
 /// Where the quantile is below the smallest double (tiny shapes), the lower
 /// tail is exactly x^a/Γ(a+1) to double precision, so its log is solved in
 /// closed form: that keeps 1/x and √(1/x) (inverse-gamma laws) representable.
-fn gamma_unit_ln_quantile(shape: f64, prob: f64, upper: bool) -> f64 {
+fn gamma_unit_ln_quantile(shape: f64, prob: f64, upper: bool, hint: Option<f64>) -> f64 {
     let z = if upper {
         guess::normal_upper_point(prob)
     } else {
@@ -106,17 +113,24 @@ fn gamma_unit_ln_quantile(shape: f64, prob: f64, upper: bool) -> f64 {
         let c = 1.0 - 1.0 / (9.0 * shape) + z / (3.0 * shape.sqrt());
         shape * c * c * c
     };
-    let start = if wh > 0.0 && shape >= 1.0 {
+    let start = if let Some(h) = hint.filter(|h| *h > 0.0 && h.is_finite()) {
+        h
+    } else if wh > 0.0 && shape >= 1.0 {
         wh
     } else if !upper {
         ((prob.ln() + ln_gamma(shape + 1.0)) / shape).exp()
     } else {
         shape.max(1.0) - prob.ln()
     };
+    let kernel = PoissonKernel::new(shape);
     let tail = |x: f64| {
-        let (p, q) = gamma_pq(shape, x);
-        let f = shape * poisson_kernel(shape, x) / x;
-        (if upper { q } else { p }, f)
+        let k = kernel.eval(x);
+        let (p, q) = gamma_pq_with(shape, x, k);
+        (
+            if upper { q } else { p },
+            shape * k / x,
+            (shape - 1.0) / x - 1.0,
+        )
     };
     let x = invert_positive(tail, upper, prob, start, LN_MAX);
     if x > 1e-300 {
@@ -130,73 +144,104 @@ fn gamma_unit_ln_quantile(shape: f64, prob: f64, upper: bool) -> f64 {
 ///
 /// Solved for x when the answer lies in (0, ½] and for y = 1 − x under
 /// Beta(b, a) otherwise, so the small variable is always the one solved for.
-fn beta_quantile(a: f64, b: f64, p: f64, q: f64) -> f64 {
-    let (below_half, _) = beta_i(a, b, 0.5, 0.5);
-    if p <= below_half {
-        beta_small_quantile(a, b, p, q)
+fn beta_quantile(a: f64, b: f64, p: f64, q: f64, hint: Option<f64>) -> f64 {
+    // A hint well away from ½ tells the side without evaluating F(½).
+    let small_side = match hint {
+        Some(h) if h < 0.4 => true,
+        Some(h) if h > 0.6 => false,
+        _ => p <= beta_i(a, b, 0.5, 0.5).0,
+    };
+    if small_side {
+        beta_small_quantile(a, b, p, q, hint)
     } else {
-        1.0 - beta_small_quantile(b, a, q, p)
+        1.0 - beta_small_quantile(b, a, q, p, hint.map(|h| 1.0 - h))
     }
 }
 
 /// Beta(a, b) quantile known to lie in (0, ½]: p = P(X ≤ x), q = 1 − p; the
 /// tail solved is the smaller of the two.
-fn beta_small_quantile(a: f64, b: f64, p: f64, q: f64) -> f64 {
+fn beta_small_quantile(a: f64, b: f64, p: f64, q: f64, hint: Option<f64>) -> f64 {
     let upper = p > 0.5;
     let prob = if upper { q } else { p };
     let mean = a / (a + b);
     let sd = (a * b / (a + b + 1.0)).sqrt() / (a + b);
     let normal = mean + guess::normal_quantile(p) * sd;
     let power = ((p.ln() + a.ln() + ln_beta(a, b)) / a).exp();
-    let start = if a >= 1.0 && b >= 1.0 && normal > 0.0 && normal < 0.5 {
-        normal
-    } else {
-        power.min(0.25)
+    let start = match hint {
+        Some(h) if h > 0.0 && h < 0.5 => h,
+        _ if a >= 1.0 && b >= 1.0 && normal > 0.0 && normal < 0.5 => normal,
+        _ => power.min(0.25),
     };
+    let kernel = BetaKernel::new(a, b);
     let tail = |x: f64| {
         let y = 1.0 - x;
-        let (lo, up) = beta_i(a, b, x, y);
+        let k = kernel.eval(x, y);
+        let (lo, up) = beta_i_with(a, b, x, y, k);
         (
             if upper { up } else { lo },
-            beta_kernel(a, b, x, y) / (x * y),
+            k / (x * y),
+            (a - 1.0) / x - (b - 1.0) / y,
         )
     };
     invert_positive(tail, upper, prob, start, 0.5f64.ln()).min(0.5)
 }
 
-/// Standard Student-t upper-tail probability at t ≥ 0 and the density there.
-fn student_upper(df: f64, t: f64) -> (f64, f64) {
-    if t > 1e150 {
-        // x = ν/(ν+t²) < 1e-290: I_x(ν/2, ½) is its leading series term
-        // x^(ν/2) / ((ν/2) B(ν/2, ½)) to double precision; taken in logs.
+/// Constants of a standard Student-t with `df` degrees of freedom, computed
+/// once per quantile search.
+#[derive(Clone, Copy)]
+struct Student {
+    df: f64,
+    kernel: BetaKernel,
+    ln_beta: f64,
+    ln_density_const: f64,
+}
+
+impl Student {
+    fn new(df: f64) -> Self {
         let a = 0.5 * df;
-        let ln_x = df.ln() - 2.0 * t.ln();
-        let tail = 0.5 * (a * ln_x - a.ln() - ln_beta(a, 0.5)).exp();
-        return (tail, student_density(df, t));
+        Self {
+            df,
+            kernel: BetaKernel::new(a, 0.5),
+            ln_beta: ln_beta(a, 0.5),
+            ln_density_const: ln_gamma_ratio(a, 0.5) - 0.5 * (df * PI).ln(),
+        }
     }
-    let (x, y) = {
+
+    /// Upper-tail probability at t ≥ 0, density, and slope of the log-density.
+    fn upper(&self, t: f64) -> TailPoint {
+        let df = self.df;
+        let slope = -(df + 1.0) * t / (df + t * t);
+        let a = 0.5 * df;
+        if t > 1e150 {
+            // x = ν/(ν+t²) < 1e-290: I_x(ν/2, ½) is its leading series term
+            // x^(ν/2) / ((ν/2) B(ν/2, ½)) to double precision; taken in logs.
+            let ln_x = df.ln() - 2.0 * t.ln();
+            let tail = 0.5 * (a * ln_x - a.ln() - self.ln_beta).exp();
+            return (tail, self.density(t), slope);
+        }
         let t2 = t * t;
-        (df / (df + t2), t2 / (df + t2))
-    };
-    let (tail, _) = beta_i(0.5 * df, 0.5, x, y);
-    (0.5 * tail, student_density(df, t))
+        let (x, y) = (df / (df + t2), t2 / (df + t2));
+        let (tail, _) = beta_i_with(a, 0.5, x, y, self.kernel.eval(x, y));
+        (0.5 * tail, self.density(t), slope)
+    }
+
+    fn density(&self, t: f64) -> f64 {
+        (self.ln_density_const - 0.5 * (self.df + 1.0) * (t / self.df.sqrt()).powi(2).ln_1p()).exp()
+    }
 }
 
-fn student_density(df: f64, t: f64) -> f64 {
-    let ln = ln_gamma_ratio(0.5 * df, 0.5)
-        - 0.5 * (df * PI).ln()
-        - 0.5 * (df + 1.0) * (t / df.sqrt()).powi(2).ln_1p();
-    ln.exp()
-}
-
-/// Standard normal upper tail at z ≥ 0 (through Q(½, z²/2) = erfc(z/√2)) and density.
-fn normal_upper(z: f64) -> (f64, f64) {
-    let (_, q) = gamma_pq(0.5, 0.5 * z * z);
-    (0.5 * q, (-0.5 * z * z).exp() / (2.0 * PI).sqrt())
+/// Standard normal upper tail at z ≥ 0 (through Q(½, z²/2) = erfc(z/√2)),
+/// density, and slope of the log-density.
+fn normal_upper(z: f64) -> TailPoint {
+    let w = 0.5 * z * z;
+    // Poisson kernel w^½ e^{−w} / Γ(3/2), Γ(3/2) = √π / 2.
+    let kernel = 2.0 * (w.sqrt() * (-w).exp()) / PI.sqrt();
+    let (_, q) = gamma_pq_with(0.5, w, kernel);
+    (0.5 * q, (-w).exp() / (2.0 * PI).sqrt(), -z)
 }
 
 /// Quantile of a distribution symmetric about 0, from its upper tail on [0, ∞).
-fn symmetric_quantile(upper: impl Fn(f64) -> (f64, f64), p: f64, guess: f64) -> f64 {
+fn symmetric_quantile(upper: impl Fn(f64) -> TailPoint, p: f64, guess: f64) -> f64 {
     if p == 0.5 {
         return 0.0;
     }
@@ -243,7 +288,7 @@ impl Continuous {
             }
             Self::Normal { mean, sd } => {
                 let z = (x - mean) / sd;
-                let (up, _) = normal_upper(z.abs());
+                let (up, _, _) = normal_upper(z.abs());
                 if z < 0.0 {
                     (up, 1.0 - up)
                 } else {
@@ -252,7 +297,7 @@ impl Continuous {
             }
             Self::StudentT { df, loc, scale } => {
                 let t = (x - loc) / scale;
-                let (up, _) = student_upper(df, t.abs());
+                let (up, _, _) = Student::new(df).upper(t.abs());
                 if t < 0.0 {
                     (up, 1.0 - up)
                 } else {
@@ -316,7 +361,9 @@ impl Continuous {
                 2.0 * shape * poisson_kernel(shape, scale / x / x) / x
             }
             Self::Normal { mean, sd } => normal_upper((x - mean) / sd).1 / sd,
-            Self::StudentT { df, loc, scale } => student_density(df, (x - loc) / scale) / scale,
+            Self::StudentT { df, loc, scale } => {
+                Student::new(df).density((x - loc) / scale) / scale
+            }
             Self::Lomax { shape, scale } => {
                 shape / scale * (-(shape + 1.0) * (x / scale).ln_1p()).exp()
             }
@@ -343,6 +390,13 @@ impl Continuous {
 
     /// The p-quantile, 0 ≤ p ≤ 1 (support ends at 0 and 1).
     pub fn quantile(&self, p: f64) -> f64 {
+        self.quantile_near(p, None)
+    }
+
+    /// The p-quantile, starting the search at `hint` (a nearby quantile):
+    /// the same answer as [`Self::quantile`], in fewer steps.
+    pub fn quantile_near(&self, p: f64, hint: Option<f64>) -> f64 {
+        let hint = hint.filter(|h| h.is_finite());
         let (lo, hi) = self.support();
         if p <= 0.0 {
             return lo;
@@ -352,26 +406,34 @@ impl Continuous {
         }
         let q = 1.0 - p;
         match *self {
-            Self::Beta { a, b } => beta_quantile(a, b, p, q),
+            Self::Beta { a, b } => beta_quantile(a, b, p, q, hint),
             Self::Gamma { shape, rate } => {
+                let h = hint.map(|x| x * rate);
                 let ln_z = if p <= 0.5 {
-                    gamma_unit_ln_quantile(shape, p, false)
+                    gamma_unit_ln_quantile(shape, p, false, h)
                 } else {
-                    gamma_unit_ln_quantile(shape, q, true)
+                    gamma_unit_ln_quantile(shape, q, true, h)
                 };
                 ln_z.exp() / rate
             }
-            Self::InvGamma { shape, scale } => scale * (-inv_gamma_unit_ln(shape, p)).exp(),
+            Self::InvGamma { shape, scale } => {
+                scale * (-inv_gamma_unit_ln(shape, p, hint.map(|x| scale / x))).exp()
+            }
             Self::SqrtInvGamma { shape, scale } => {
-                scale.sqrt() * (-0.5 * inv_gamma_unit_ln(shape, p)).exp()
+                let h = hint.map(|x| scale / x / x);
+                scale.sqrt() * (-0.5 * inv_gamma_unit_ln(shape, p, h)).exp()
             }
             Self::Normal { mean, sd } => {
-                mean + sd * symmetric_quantile(normal_upper, p, guess::normal_quantile(p))
+                let start = hint.map_or_else(|| guess::normal_quantile(p), |x| (x - mean) / sd);
+                mean + sd * symmetric_quantile(normal_upper, p, start)
             }
             Self::StudentT { df, loc, scale } => {
                 let z = guess::normal_quantile(p);
-                let start = z * (1.0 + (z * z + 1.0) / (4.0 * df));
-                loc + scale * symmetric_quantile(|t| student_upper(df, t), p, start)
+                let start = hint.map_or(z * (1.0 + (z * z + 1.0) / (4.0 * df)), |x| {
+                    (x - loc) / scale
+                });
+                let student = Student::new(df);
+                loc + scale * symmetric_quantile(|t| student.upper(t), p, start)
             }
             Self::Lomax { shape, scale } => {
                 // Closed form: x = scale · (q^(−1/shape) − 1).
@@ -470,13 +532,28 @@ impl Continuous {
 
     /// Equal-tailed interval holding `level` of the mass.
     pub fn central_interval(&self, level: f64) -> Interval {
+        self.central_interval_near(level, None)
+    }
+
+    /// [`Self::central_interval`] with hints for its two ends.
+    pub fn central_interval_near(&self, level: f64, hints: Option<(f64, f64)>) -> Interval {
         let tail = 0.5 * (1.0 - level);
-        Interval::single(level, self.quantile(tail), self.quantile(1.0 - tail))
+        let (hl, hu) = hints.map_or((None, None), |(l, u)| (Some(l), Some(u)));
+        Interval::single(
+            level,
+            self.quantile_near(tail, hl),
+            self.quantile_near(1.0 - tail, hu),
+        )
     }
 
     /// Shortest set holding `level` of the mass (one or two pieces).
     pub fn hpd_interval(&self, level: f64) -> Interval {
-        interval::highest_density(self, level)
+        self.hpd_interval_near(level, &self.central_interval(level))
+    }
+
+    /// [`Self::hpd_interval`], its searches started from `central`'s ends.
+    pub fn hpd_interval_near(&self, level: f64, central: &Interval) -> Interval {
+        interval::highest_density(self, level, Some((central.lower, central.upper)))
     }
 
     /// The distribution's name as used in output.
@@ -523,11 +600,11 @@ fn edge_density(a: f64, at_one: f64) -> f64 {
 
 /// ln z of the gamma point z with x = scale / z for the inverse-gamma
 /// p-quantile: the p-quantile of 1/Z is 1 over the upper-p point of Z.
-fn inv_gamma_unit_ln(shape: f64, p: f64) -> f64 {
+fn inv_gamma_unit_ln(shape: f64, p: f64, hint: Option<f64>) -> f64 {
     if p <= 0.5 {
-        gamma_unit_ln_quantile(shape, p, true)
+        gamma_unit_ln_quantile(shape, p, true, hint)
     } else {
-        gamma_unit_ln_quantile(shape, 1.0 - p, false)
+        gamma_unit_ln_quantile(shape, 1.0 - p, false, hint)
     }
 }
 

@@ -9,6 +9,7 @@
 
 use super::Continuous;
 use crate::numeric::solve::increasing_root;
+use std::cell::Cell;
 
 /// How a density is shaped, which decides its mode and its highest-density set.
 #[derive(Clone, Copy, Debug, PartialEq, Eq)]
@@ -65,24 +66,82 @@ fn solve_lower_mass(h: impl Fn(f64) -> (f64, f64), p_max: f64) -> f64 {
         .min(p_max)
 }
 
-/// The highest-density set of `d` at `level`.
-pub fn highest_density(d: &Continuous, level: f64) -> Interval {
+/// Newton's method on both ends at once, from a nearby interval [l, u]:
+/// e1 = S(L)·… written as 1 − S(U) − F(L) − level and e2 = ln f(L) − ln f(U).
+/// The Jacobian [[−f(L), f(U)], [s(L), −s(U)]] (s = (ln f)′) has a negative
+/// determinant on either side of the mode. Returns None if a step leaves the
+/// sides of the mode or it does not settle, and the caller falls back.
+fn newton_ends(d: &Continuous, level: f64, mut l: f64, mut u: f64) -> Option<(f64, f64)> {
+    let mode = d.mode()?;
+    let (lo, hi) = d.support();
+    if !(l > lo && l < mode && u > mode && u < hi) {
+        return None;
+    }
+    for _ in 0..40 {
+        let ((fl_lo, _), (_, su_up)) = (d.tails(l), d.tails(u));
+        let e1 = 1.0 - su_up - fl_lo - level;
+        let (fl, fu) = (d.pdf(l), d.pdf(u));
+        let e2 = fl.ln() - fu.ln();
+        let (sl, su) = (d.ln_pdf_slope(l), d.ln_pdf_slope(u));
+        let det = fl * su - fu * sl;
+        if !(det < 0.0 && det.is_finite() && e1.is_finite() && e2.is_finite()) {
+            return None;
+        }
+        // (ΔL, ΔU) = −J⁻¹e.
+        let dl = (su * e1 + fu * e2) / det;
+        let du = (sl * e1 + fl * e2) / det;
+        let (mut nl, mut nu) = (l + dl, u + du);
+        // Damp a step that would cross the mode or leave the support.
+        let mut shrink = 0;
+        while !(nl > lo && nl < mode && nu > mode && nu < hi) {
+            shrink += 1;
+            if shrink > 30 {
+                return None;
+            }
+            nl = l + dl * 0.5f64.powi(shrink);
+            nu = u + du * 0.5f64.powi(shrink);
+        }
+        let done = (nl - l).abs() <= 1e-14 * l.abs() && (nu - u).abs() <= 1e-14 * u.abs();
+        l = nl;
+        u = nu;
+        if done {
+            return Some((l, u));
+        }
+    }
+    None
+}
+
+/// The highest-density set of `d` at `level`; `start`, if given, are the ends
+/// of a nearby interval (the central one) to begin the searches from.
+pub fn highest_density(d: &Continuous, level: f64, start: Option<(f64, f64)>) -> Interval {
     let (lo, hi) = d.support();
     match d.shape() {
         Shape::Symmetric | Shape::Flat => d.central_interval(level),
         Shape::Decreasing => Interval::single(level, lo, d.quantile(level)),
         Shape::Increasing => Interval::single(level, d.quantile(1.0 - level), hi),
         Shape::Unimodal => {
+            if let Some((l0, u0)) = start
+                && let Some((l, u)) = newton_ends(d, level, l0, u0)
+            {
+                return Interval::single(level, l, u);
+            }
+            // Each step starts both quantile searches from the previous ends.
+            let ends = Cell::new(start);
             let h = |pl: f64| {
-                let l = d.quantile(pl);
-                let u = d.quantile(pl + level);
+                let prev = ends.get();
+                let l = d.quantile_near(pl, prev.map(|e| e.0));
+                let u = d.quantile_near(pl + level, prev.map(|e| e.1));
+                ends.set(Some((l, u)));
                 let (fl, fu) = (d.pdf(l), d.pdf(u));
                 let v = fl.ln() - fu.ln();
                 let slope = d.ln_pdf_slope(l) / fl - d.ln_pdf_slope(u) / fu;
                 (v, slope)
             };
             let pl = solve_lower_mass(h, 1.0 - level);
-            Interval::single(level, d.quantile(pl), d.quantile(pl + level))
+            let prev = ends.get();
+            let l = d.quantile_near(pl, prev.map(|e| e.0));
+            let u = d.quantile_near(pl + level, prev.map(|e| e.1));
+            Interval::single(level, l, u)
         }
         Shape::UShaped => {
             // Mass level = F(L) + 1 − F(U), so F(U) = p_L + 1 − level; h decreases in p_L.

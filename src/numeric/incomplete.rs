@@ -23,13 +23,20 @@ fn max_terms(scale: f64) -> usize {
 
 /// (P(a, x), Q(a, x)): the regularised lower and upper incomplete gamma, a > 0.
 pub fn gamma_pq(a: f64, x: f64) -> (f64, f64) {
+    if x <= 0.0 || x == f64::INFINITY {
+        return if x <= 0.0 { (0.0, 1.0) } else { (1.0, 0.0) };
+    }
+    gamma_pq_with(a, x, poisson_kernel(a, x))
+}
+
+/// [`gamma_pq`] given its kernel x^a e^{−x}/Γ(a+1) (solvers reuse it for the density).
+pub fn gamma_pq_with(a: f64, x: f64, kernel: f64) -> (f64, f64) {
     if x <= 0.0 {
         return (0.0, 1.0);
     }
     if x == f64::INFINITY {
         return (1.0, 0.0);
     }
-    let kernel = poisson_kernel(a, x);
     if kernel == 0.0 {
         // Far in one tail: the density term underflowed.
         return if x < a { (0.0, 1.0) } else { (1.0, 0.0) };
@@ -227,7 +234,17 @@ pub fn beta_i(a: f64, b: f64, x: f64, y: f64) -> (f64, f64) {
     if y <= 0.0 {
         return (1.0, 0.0);
     }
-    let front = beta_kernel(a, b, x, y);
+    beta_i_with(a, b, x, y, beta_kernel(a, b, x, y))
+}
+
+/// [`beta_i`] given its kernel x^a y^b / B(a, b) (solvers reuse it for the density).
+pub fn beta_i_with(a: f64, b: f64, x: f64, y: f64, front: f64) -> (f64, f64) {
+    if x <= 0.0 {
+        return (0.0, 1.0);
+    }
+    if y <= 0.0 {
+        return (1.0, 0.0);
+    }
     if front == 0.0 {
         // Far in one tail: the density term underflowed.
         return if x * (a + b) < a {
@@ -238,8 +255,13 @@ pub fn beta_i(a: f64, b: f64, x: f64, y: f64) -> (f64, f64) {
     }
     // A series value v is kept if v ≤ 0.999: its complement then loses at
     // most three digits. Otherwise the other side, or the continued fraction.
-    let n_lower = beta_series_terms(a, b, x);
-    let n_upper = beta_series_terms(b, a, y);
+    // Only with a huge shape: elsewhere the continued fraction is both accurate
+    // and faster.
+    let (n_lower, n_upper) = if a.max(b) >= DD_FROM {
+        (beta_series_terms(a, b, x), beta_series_terms(b, a, y))
+    } else {
+        (f64::INFINITY, f64::INFINITY)
+    };
     if n_lower < SERIES_LIMIT {
         let lower = (front * beta_series(a, b, x, 3 * n_lower as usize + 100) / a).min(1.0);
         if lower <= SERIES_KEEP {

@@ -10,6 +10,27 @@
 /// is used. `guess` need not lie in the bracket. Relative tolerance `tol` on u.
 pub fn increasing_root(
     mut g: impl FnMut(f64) -> (f64, f64),
+    lo: f64,
+    hi: f64,
+    guess: f64,
+    tol: f64,
+) -> f64 {
+    increasing_root_halley(
+        |u| {
+            let (v, d) = g(u);
+            (v, d, f64::NAN)
+        },
+        lo,
+        hi,
+        guess,
+        tol,
+    )
+}
+
+/// [`increasing_root`] with the second derivative as well: Halley's step
+/// (cubic convergence) wherever g″ is finite and the step is well posed.
+pub fn increasing_root_halley(
+    mut g: impl FnMut(f64) -> (f64, f64, f64),
     mut lo: f64,
     mut hi: f64,
     guess: f64,
@@ -21,7 +42,7 @@ pub fn increasing_root(
         0.5 * (lo + hi)
     };
     for _ in 0..400 {
-        let (value, slope) = g(u);
+        let (value, slope, curve) = g(u);
         if value == 0.0 {
             return u;
         }
@@ -34,7 +55,13 @@ pub fn increasing_root(
             hi = u;
         }
         let newton = if value.is_finite() && slope.is_finite() && slope > 0.0 {
-            u - value / slope
+            let step = value / slope;
+            let denom = 1.0 - 0.5 * step * curve / slope;
+            if curve.is_finite() && denom > 0.5 && denom < 2.0 {
+                u - step / denom
+            } else {
+                u - step
+            }
         } else {
             f64::NAN
         };
