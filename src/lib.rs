@@ -6,6 +6,7 @@
 pub mod analysis;
 pub mod cli;
 pub mod distribution;
+pub mod elicit;
 pub mod error;
 pub mod family;
 pub mod numeric;

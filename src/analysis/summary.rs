@@ -1,8 +1,8 @@
 //! What `describe`, `update` and `predict` report, computed once here so the
 //! CLI and the GUI show the same numbers.
 
-use crate::distribution::interval::Shape;
-use crate::distribution::{Continuous, Discrete, Interval};
+use crate::distribution::{Continuous, Discrete, Interval, Law, MixtureLaw};
+use crate::elicit::CountMixture;
 use crate::error::{self, Error, Result};
 use crate::family::{Marginal, Predictive};
 
@@ -58,7 +58,7 @@ pub struct ParameterSummary {
     /// Parameter name.
     pub name: String,
     /// Its distribution.
-    pub distribution: Continuous,
+    pub distribution: Law,
     /// Mean, where it exists.
     pub mean: Option<f64>,
     /// Standard deviation, where it exists.
@@ -79,12 +79,28 @@ pub struct ParameterSummary {
 
 /// Summarises each marginal; cdf points go to the parameter they name.
 pub fn summarize(marginals: &[Marginal], opts: &SummaryOptions) -> Result<Vec<ParameterSummary>> {
+    let laws: Vec<(String, Law)> = marginals
+        .iter()
+        .map(|m| (m.name.clone(), Law::One(m.distribution)))
+        .collect();
+    summarize_laws(&laws, opts)
+}
+
+/// [`summarize`] for named laws, single or mixed.
+pub fn summarize_laws(
+    laws: &[(String, Law)],
+    opts: &SummaryOptions,
+) -> Result<Vec<ParameterSummary>> {
+    let marginals: Vec<Named<'_>> = laws
+        .iter()
+        .map(|(n, l)| Named { name: n, law: l })
+        .collect();
     opts.validate()?;
     for (name, _) in &opts.cdf_points {
         if let Some(n) = name
-            && !marginals.iter().any(|m| &m.name == n)
+            && !marginals.iter().any(|m| m.name == n)
         {
-            let names: Vec<&str> = marginals.iter().map(|m| m.name.as_str()).collect();
+            let names: Vec<&str> = marginals.iter().map(|m| m.name).collect();
             return Err(Error::Rule(format!(
                 "--cdf names '{n}', which is not a parameter here; the parameters are {}",
                 names.join(", ")
@@ -95,12 +111,12 @@ pub fn summarize(marginals: &[Marginal], opts: &SummaryOptions) -> Result<Vec<Pa
         .iter()
         .enumerate()
         .map(|(i, m)| {
-            let d = &m.distribution;
+            let d = m.law;
             let cdf = opts
                 .cdf_points
                 .iter()
                 .filter(|(name, _)| match name {
-                    Some(n) => n == &m.name,
+                    Some(n) => n == m.name,
                     None => i == 0,
                 })
                 .map(|(_, x)| {
@@ -123,14 +139,10 @@ pub fn summarize(marginals: &[Marginal], opts: &SummaryOptions) -> Result<Vec<Pa
             let quantiles = opts.probs.iter().map(|p| (*p, find(*p))).collect();
             let tail = 0.5 * (1.0 - opts.level);
             let central = Interval::single(opts.level, find(tail), find(1.0 - tail));
-            let hpd = if d.shape() == Shape::Symmetric {
-                central.clone()
-            } else {
-                d.hpd_interval_near(opts.level, &central)
-            };
+            let hpd = d.hpd_interval(opts.level, &central);
             ParameterSummary {
-                name: m.name.clone(),
-                distribution: *d,
+                name: m.name.to_owned(),
+                distribution: d.clone(),
                 mean: d.mean(),
                 sd: d.sd(),
                 mode: d.mode(),
@@ -155,6 +167,12 @@ pub struct AtPoint {
     pub cdf: f64,
 }
 
+/// A law with its parameter name, for the summary loop.
+struct Named<'a> {
+    name: &'a str,
+    law: &'a Law,
+}
+
 /// Summary of one predictive distribution (or one category's).
 #[derive(Clone, Debug, PartialEq)]
 pub struct PredictiveSummary {
@@ -177,7 +195,7 @@ pub struct PredictiveSummary {
 }
 
 fn summarize_count(
-    d: &Discrete,
+    d: &CountMixture,
     category: Option<String>,
     probs: &[f64],
     at: &[f64],
@@ -201,14 +219,18 @@ fn summarize_count(
             AtPoint {
                 x,
                 density: d.pmf(x as u64),
-                cdf: d.cdf(x as u64),
+                cdf: d.tails(x as u64).0,
             }
         });
     }
+    let (distribution, parameters) = match d.parts.as_slice() {
+        [(_, one)] => (one.name(), one.parameters()),
+        _ => ("mixture", Vec::new()),
+    };
     Ok(PredictiveSummary {
         category,
-        distribution: d.name(),
-        parameters: d.parameters(),
+        distribution,
+        parameters,
         discrete: true,
         mean: Some(d.mean()),
         sd: Some(d.sd()),
@@ -223,34 +245,100 @@ pub fn summarize_predictive(
     probs: &[f64],
     at: &[f64],
 ) -> Result<Vec<PredictiveSummary>> {
+    summarize_mixed_predictive(&[(1.0, pred.clone())], probs, at)
+}
+
+/// [`summarize_predictive`] for a weighted mixture of predictives of one kind.
+pub fn summarize_mixed_predictive(
+    parts: &[(f64, Predictive)],
+    probs: &[f64],
+    at: &[f64],
+) -> Result<Vec<PredictiveSummary>> {
     for p in probs {
         error::probability("--prob", *p)?;
     }
     for x in at {
         error::finite("--at", *x)?;
     }
-    match pred {
-        Predictive::Count(d) => Ok(vec![summarize_count(d, None, probs, at)?]),
-        Predictive::Categories(cats) => cats
+    let counts: Option<Vec<(f64, Discrete)>> = parts
+        .iter()
+        .map(|(w, p)| match p {
+            Predictive::Count(d) => Some((*w, *d)),
+            _ => None,
+        })
+        .collect();
+    if let Some(parts) = counts {
+        return Ok(vec![summarize_count(
+            &CountMixture { parts },
+            None,
+            probs,
+            at,
+        )?]);
+    }
+    let values: Option<Vec<(f64, Continuous)>> = parts
+        .iter()
+        .map(|(w, p)| match p {
+            Predictive::Value(d) => Some((*w, *d)),
+            _ => None,
+        })
+        .collect();
+    if let Some(vs) = values {
+        let law = if vs.len() == 1 {
+            Law::One(vs[0].1)
+        } else {
+            Law::Mix(MixtureLaw::new(vs.clone()))
+        };
+        let (distribution, parameters) = match &law {
+            Law::One(d) => (d.name(), d.parameters()),
+            Law::Mix(_) => ("mixture", Vec::new()),
+        };
+        let mut known: Vec<(f64, f64)> = Vec::new();
+        let quantiles = probs
             .iter()
-            .map(|(name, d)| summarize_count(d, Some(name.clone()), probs, at))
-            .collect(),
-        Predictive::Value(d) => Ok(vec![PredictiveSummary {
+            .map(|p| {
+                let hint = known
+                    .iter()
+                    .min_by(|a, b| (a.0 - p).abs().total_cmp(&(b.0 - p).abs()))
+                    .map(|k| k.1);
+                let x = law.quantile_near(*p, hint);
+                known.push((*p, x));
+                (*p, x)
+            })
+            .collect();
+        return Ok(vec![PredictiveSummary {
             category: None,
-            distribution: d.name(),
-            parameters: d.parameters(),
+            distribution,
+            parameters,
             discrete: false,
-            mean: d.mean(),
-            sd: d.sd(),
-            quantiles: probs.iter().map(|p| (*p, d.quantile(*p))).collect(),
+            mean: law.mean(),
+            sd: law.sd(),
+            quantiles,
             at: at
                 .iter()
                 .map(|&x| AtPoint {
                     x,
-                    density: d.pdf(x),
-                    cdf: d.cdf(x),
+                    density: law.pdf(x),
+                    cdf: law.tails(x).0,
                 })
                 .collect(),
-        }]),
+        }]);
     }
+    // One count per category: mix each category's law across the parts.
+    let mut cats: Vec<(String, Vec<(f64, Discrete)>)> = Vec::new();
+    for (w, p) in parts {
+        let Predictive::Categories(cs) = p else {
+            return Err(Error::Rule(
+                "the parts of a mixed predictive are of different kinds".to_owned(),
+            ));
+        };
+        for (k, (name, d)) in cs.iter().enumerate() {
+            if cats.len() <= k {
+                cats.push((name.clone(), Vec::new()));
+            }
+            cats[k].1.push((*w, *d));
+        }
+    }
+    cats.into_iter()
+        .map(|(name, parts)| summarize_count(&CountMixture { parts }, Some(name), probs, at))
+        .collect()
 }

@@ -35,7 +35,19 @@ pub struct PriorArgs {
     pub family: String,
     /// The prior's hyperparameters as key=value pairs, e.g. alpha=2,beta=8.
     #[arg(long, allow_hyphen_values = true)]
-    pub prior: String,
+    pub prior: Option<String>,
+    /// One component of a mixture as WEIGHT:key=value,... (repeat once per
+    /// component; the weights sum to 1), instead of --prior.
+    #[arg(long = "component", allow_hyphen_values = true)]
+    pub components: Vec<String>,
+    /// How --component priors combine: linear (the mixture itself; default) or
+    /// log (the logarithmic pool, again one conjugate prior).
+    #[arg(long)]
+    pub pool: Option<String>,
+    /// Robust prior: mix in a unit-information component (same prior mean,
+    /// effective sample size 1) at this weight, e.g. --robust 0.2.
+    #[arg(long)]
+    pub robust: Option<String>,
 }
 
 /// What to report for each unknown.

@@ -3,7 +3,8 @@
 
 use crate::analysis::summary::{ParameterSummary, PredictiveSummary};
 use crate::distribution::Interval;
-use crate::family::{Conflict, Prior, Value as HyperValue};
+use crate::elicit::{Belief, Mixture};
+use crate::family::{Conflict, Value as HyperValue};
 use serde_json::{Map, Value, json};
 
 fn num(x: f64) -> Value {
@@ -54,15 +55,47 @@ fn parameter(p: &ParameterSummary) -> Value {
     })
 }
 
-fn head(prior: &Prior) -> Map<String, Value> {
+fn components(m: &Mixture) -> Value {
+    Value::Array(
+        m.components()
+            .iter()
+            .map(|(w, p)| {
+                json!({
+                    "weight": num(*w),
+                    "hyperparameters": named(&p.hyperparameters()),
+                    "pseudo_observations": named(&p.pseudo_observations()),
+                })
+            })
+            .collect(),
+    )
+}
+
+fn head(belief: &Belief) -> Map<String, Value> {
     let mut m = Map::new();
-    m.insert("family".into(), json!(prior.id()));
-    m.insert("hyperparameters".into(), named(&prior.hyperparameters()));
-    m.insert(
-        "pseudo_observations".into(),
-        named(&prior.pseudo_observations()),
-    );
-    m.insert("as_if".into(), json!(prior.as_if()));
+    m.insert("family".into(), json!(belief.id()));
+    match belief {
+        Belief::One(prior) => {
+            m.insert("hyperparameters".into(), named(&prior.hyperparameters()));
+            m.insert(
+                "pseudo_observations".into(),
+                named(&prior.pseudo_observations()),
+            );
+            m.insert("as_if".into(), json!(prior.as_if()));
+        }
+        Belief::Mix(mix) => {
+            m.insert("components".into(), components(mix));
+        }
+    }
+    m
+}
+
+fn with_pool(mut m: Map<String, Value>, pooled: Option<&Mixture>) -> Map<String, Value> {
+    if let Some(mix) = pooled {
+        m.insert(
+            "pool".into(),
+            json!({ "method": "log", "components": components(mix) }),
+        );
+    }
     m
 }
 
@@ -73,8 +106,8 @@ fn finish(m: Map<String, Value>) -> String {
 }
 
 /// `describe --json`.
-pub fn describe(prior: &Prior, params: &[ParameterSummary]) -> String {
-    let mut m = head(prior);
+pub fn describe(prior: &Belief, pooled: Option<&Mixture>, params: &[ParameterSummary]) -> String {
+    let mut m = with_pool(head(prior), pooled);
     m.insert(
         "parameters".into(),
         Value::Array(params.iter().map(parameter).collect()),
@@ -85,9 +118,11 @@ pub fn describe(prior: &Prior, params: &[ParameterSummary]) -> String {
 /// What `update` reports.
 pub struct UpdateReport<'a> {
     /// The prior.
-    pub prior: &'a Prior,
+    pub prior: &'a Belief,
+    /// The priors a logarithmic pool was made of, if it was.
+    pub pooled: Option<&'a Mixture>,
     /// The posterior.
-    pub posterior: &'a Prior,
+    pub posterior: &'a Belief,
     /// Posterior summaries.
     pub params: &'a [ParameterSummary],
     /// ln p(data | prior).
@@ -111,7 +146,7 @@ fn conflict(c: &Conflict) -> Value {
 
 /// `update --json`: hyperparameters and parameters describe the posterior.
 pub fn update(r: &UpdateReport<'_>) -> String {
-    let mut m = head(r.posterior);
+    let mut m = with_pool(head(r.posterior), r.pooled);
     m.insert(
         "parameters".into(),
         Value::Array(r.params.iter().map(parameter).collect()),
@@ -121,13 +156,10 @@ pub fn update(r: &UpdateReport<'_>) -> String {
         m.insert("conflict".into(), conflict(c));
     }
     m.insert("prior_share".into(), num(r.share));
-    m.insert(
-        "prior".into(),
-        json!({
-            "hyperparameters": named(&r.prior.hyperparameters()),
-            "pseudo_observations": named(&r.prior.pseudo_observations()),
-        }),
-    );
+    let mut prior = head(r.prior);
+    prior.remove("family");
+    prior.remove("as_if");
+    m.insert("prior".into(), Value::Object(prior));
     finish(m)
 }
 
@@ -165,8 +197,13 @@ fn predictive(p: &PredictiveSummary) -> Map<String, Value> {
 }
 
 /// `predict --json`.
-pub fn predict(used: &Prior, summaries: &[PredictiveSummary], posterior: bool) -> String {
-    let mut m = head(used);
+pub fn predict(
+    used: &Belief,
+    pooled: Option<&Mixture>,
+    summaries: &[PredictiveSummary],
+    posterior: bool,
+) -> String {
+    let mut m = with_pool(head(used), pooled);
     m.insert(
         "predictive_of".into(),
         json!(if posterior { "posterior" } else { "prior" }),

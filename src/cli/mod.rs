@@ -6,9 +6,10 @@ mod json;
 mod table;
 
 pub use args::Cli;
-use args::{Command, PredictArgs, SummaryArgs};
+use args::{Command, PredictArgs, PriorArgs, SummaryArgs};
 
 use crate::analysis::summary::{self, SummaryOptions};
+use crate::elicit::{Belief, Mixture};
 use crate::error::{Error, Result};
 use crate::family::Prior;
 use clap::Parser as _;
@@ -65,32 +66,118 @@ fn one_line(rendered: &str) -> String {
     format!("{} (see --help)", joined.join(" "))
 }
 
+/// The prior a command starts from, and the components of a logarithmic pool.
+struct Start {
+    belief: Belief,
+    pooled: Option<Mixture>,
+}
+
+/// Resolves --prior / --component / --pool / --robust into a belief.
+fn start(a: &PriorArgs) -> Result<Start> {
+    let (mut belief, pooled) = match (&a.prior, a.components.is_empty()) {
+        (Some(_), false) => {
+            return Err(Error::Rule(
+                "give either --prior or --component, not both".to_owned(),
+            ));
+        }
+        (None, true) => {
+            return Err(Error::Rule(
+                "give the prior with --prior key=value,… or --component WEIGHT:key=value,…"
+                    .to_owned(),
+            ));
+        }
+        (Some(text), true) => {
+            if a.pool.is_some() {
+                return Err(Error::Rule(
+                    "--pool combines --component priors; with one --prior there is nothing to pool"
+                        .to_owned(),
+                ));
+            }
+            (Belief::One(Prior::parse(&a.family, text)?), None)
+        }
+        (None, false) => {
+            let parts = a
+                .components
+                .iter()
+                .enumerate()
+                .map(|(i, c)| component(&a.family, i, c))
+                .collect::<Result<Vec<_>>>()?;
+            let mix = Mixture::new(parts)?;
+            match a.pool.as_deref().unwrap_or("linear") {
+                "linear" => (Belief::Mix(mix), None),
+                "log" => (Belief::One(mix.log_pool()?), Some(mix)),
+                other => {
+                    return Err(Error::Rule(format!(
+                        "--pool = '{other}' is not a pooling method; use linear or log"
+                    )));
+                }
+            }
+        }
+    };
+    if let Some(text) = &a.robust {
+        let w = crate::error::probability("--robust", parse_number("--robust", text)?)?;
+        belief = Belief::Mix(robust(&belief, w)?);
+    }
+    Ok(Start { belief, pooled })
+}
+
+/// One `WEIGHT:key=value,...` component.
+fn component(family: &str, i: usize, text: &str) -> Result<(f64, Prior)> {
+    let Some((w, rest)) = text.split_once(':') else {
+        return Err(Error::Rule(format!(
+            "--component {}: '{text}' is not of the form WEIGHT:key=value,…",
+            i + 1
+        )));
+    };
+    let weight = parse_number(&format!("--component {} weight", i + 1), w.trim())?;
+    Ok((weight, Prior::parse(family, rest)?))
+}
+
+/// The belief mixed with a unit-information component at weight `w`.
+fn robust(belief: &Belief, w: f64) -> Result<Mixture> {
+    let mut parts: Vec<(f64, Prior)> = match belief {
+        Belief::One(p) => vec![(1.0 - w, p.clone())],
+        Belief::Mix(m) => m
+            .components()
+            .iter()
+            .map(|(v, p)| ((1.0 - w) * v, p.clone()))
+            .collect(),
+    };
+    let centre = match belief {
+        Belief::One(p) => p.clone(),
+        Belief::Mix(m) => m.log_pool()?,
+    };
+    parts.push((w, centre.unit_information()?));
+    Mixture::new(parts)
+}
+
 /// Runs one command and returns what it prints.
 fn run(command: &Command) -> Result<String> {
     match command {
         Command::Describe(a) => {
-            let prior = Prior::parse(&a.prior.family, &a.prior.prior)?;
+            let s = start(&a.prior)?;
             let opts = summary_options(&a.summary)?;
-            let params = summary::summarize(&prior.marginals(), &opts)?;
+            let params = summary::summarize_laws(&s.belief.marginals(), &opts)?;
             Ok(if a.summary.json {
-                json::describe(&prior, &params)
+                json::describe(&s.belief, s.pooled.as_ref(), &params)
             } else {
-                table::describe(&prior, &params, "prior")
+                table::describe(&s.belief, &params, "prior")
             })
         }
         Command::Update(a) => {
-            let prior = Prior::parse(&a.prior.family, &a.prior.prior)?;
-            let data = prior.parse_data(&a.data)?;
+            let s = start(&a.prior)?;
+            let data = s.belief.representative().parse_data(&a.data)?;
             let opts = summary_options(&a.summary)?;
-            let post = prior.update(&data)?;
-            let params = summary::summarize(&post.marginals(), &opts)?;
+            let post = s.belief.update(&data)?;
+            let params = summary::summarize_laws(&post.marginals(), &opts)?;
             let report = json::UpdateReport {
-                prior: &prior,
+                prior: &s.belief,
+                pooled: s.pooled.as_ref(),
                 posterior: &post,
                 params: &params,
-                ln_ml: prior.ln_marginal_likelihood(&data)?,
-                share: prior.prior_share(&data)?,
-                conflict: prior.conflict(&data)?,
+                ln_ml: s.belief.ln_marginal_likelihood(&data)?,
+                share: s.belief.prior_share(&data)?,
+                conflict: s.belief.conflict(&data)?,
             };
             Ok(if a.summary.json {
                 json::update(&report)
@@ -103,19 +190,18 @@ fn run(command: &Command) -> Result<String> {
 }
 
 fn predict(a: &PredictArgs) -> Result<String> {
-    let prior = Prior::parse(&a.prior.family, &a.prior.prior)?;
+    let s = start(&a.prior)?;
     let used = match &a.data {
-        Some(d) => prior.update(&prior.parse_data(d)?)?,
-        None => prior.clone(),
+        Some(d) => s.belief.update(&s.belief.representative().parse_data(d)?)?,
+        None => s.belief.clone(),
     };
-    let future = used.parse_future(&a.future)?;
+    let future = used.representative().parse_future(&a.future)?;
     let probs = probabilities(&a.prob)?;
     let at = numbers("--at", &a.at)?;
-    let pred = used.predictive(&future)?;
-    let summaries = summary::summarize_predictive(&pred, &probs, &at)?;
+    let summaries = summary::summarize_mixed_predictive(&used.predictive(&future)?, &probs, &at)?;
     let posterior = a.data.is_some();
     Ok(if a.json {
-        json::predict(&used, &summaries, posterior)
+        json::predict(&used, s.pooled.as_ref(), &summaries, posterior)
     } else {
         table::predict(&used, &summaries, posterior)
     })

@@ -3,7 +3,8 @@
 use super::json::UpdateReport;
 use crate::analysis::summary::{ParameterSummary, PredictiveSummary};
 use crate::distribution::Interval;
-use crate::family::{Prior, Value};
+use crate::elicit::Belief;
+use crate::family::Value;
 use std::fmt::Write as _;
 
 /// Six significant digits, plain where that reads well; "none" where absent.
@@ -80,19 +81,40 @@ fn pct(level: f64) -> String {
     format!("{}%", fmt(Some(level * 100.0)))
 }
 
-fn header(out: &mut String, prior: &Prior, what: &str) {
-    let _ = writeln!(
-        out,
-        "{} {what}: {}",
-        prior.id(),
-        values(&prior.hyperparameters())
-    );
-    let _ = writeln!(out, "  {}", prior.as_if());
-    let _ = writeln!(
-        out,
-        "  pseudo-observations: {}",
-        values(&prior.pseudo_observations())
-    );
+fn header(out: &mut String, belief: &Belief, what: &str) {
+    match belief {
+        Belief::One(prior) => {
+            let _ = writeln!(
+                out,
+                "{} {what}: {}",
+                prior.id(),
+                values(&prior.hyperparameters())
+            );
+            let _ = writeln!(out, "  {}", prior.as_if());
+            let _ = writeln!(
+                out,
+                "  pseudo-observations: {}",
+                values(&prior.pseudo_observations())
+            );
+        }
+        Belief::Mix(m) => {
+            let _ = writeln!(
+                out,
+                "{} {what}: a mixture of {} components",
+                m.id(),
+                m.components().len()
+            );
+            for (w, p) in m.components() {
+                let _ = writeln!(
+                    out,
+                    "  weight {}: {}  ({})",
+                    f(*w),
+                    values(&p.hyperparameters()),
+                    p.as_if()
+                );
+            }
+        }
+    }
 }
 
 fn parameters(out: &mut String, params: &[ParameterSummary]) {
@@ -126,7 +148,7 @@ fn parameters(out: &mut String, params: &[ParameterSummary]) {
 const CAUTION: &str = "\nCaution: a prior can decide a clinical, safety or financial decision; record the\nreasoning, follow the applicable guidance and have it reviewed by someone qualified.\n";
 
 /// `describe`.
-pub fn describe(prior: &Prior, params: &[ParameterSummary], what: &str) -> String {
+pub fn describe(prior: &Belief, params: &[ParameterSummary], what: &str) -> String {
     let mut out = String::new();
     header(&mut out, prior, what);
     parameters(&mut out, params);
@@ -173,7 +195,7 @@ pub fn update(r: &UpdateReport<'_>) -> String {
 }
 
 /// `predict`.
-pub fn predict(used: &Prior, summaries: &[PredictiveSummary], posterior: bool) -> String {
+pub fn predict(used: &Belief, summaries: &[PredictiveSummary], posterior: bool) -> String {
     let mut out = String::new();
     header(
         &mut out,

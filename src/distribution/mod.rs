@@ -5,7 +5,11 @@ pub mod continuous;
 pub mod discrete;
 mod guess;
 pub mod interval;
+pub mod law;
+pub mod mixture;
 
 pub use continuous::Continuous;
 pub use discrete::Discrete;
 pub use interval::Interval;
+pub use law::Law;
+pub use mixture::MixtureLaw;

@@ -443,3 +443,80 @@ from_family!(
     DirichletMultinomial,
     InverseGammaVariance
 );
+
+/// Collects the family structs of one variant, or errors on a mixed list.
+macro_rules! pool_as {
+    ($parts:expr, $variant:ident) => {{
+        let mut same = Vec::new();
+        for (w, p) in $parts {
+            match p {
+                Prior::$variant(x) => same.push((*w, x.clone())),
+                other => {
+                    return Err(Error::Rule(format!(
+                        "all priors in a pool must be of one family; found {} beside {}",
+                        other.id(),
+                        $parts[0].1.id()
+                    )));
+                }
+            }
+        }
+        Prior::from(Conjugate::log_pool(&same)?)
+    }};
+}
+
+impl Prior {
+    /// The logarithmic pool of same-family priors (weights summing to 1):
+    /// again one conjugate prior.
+    pub fn log_pool(parts: &[(f64, Prior)]) -> Result<Prior> {
+        let Some((_, first)) = parts.first() else {
+            return Err(Error::Rule("a pool needs at least one prior".to_owned()));
+        };
+        Ok(match first {
+            Prior::BetaBinomial(_) => pool_as!(parts, BetaBinomial),
+            Prior::GammaPoisson(_) => pool_as!(parts, GammaPoisson),
+            Prior::GammaExponential(_) => pool_as!(parts, GammaExponential),
+            Prior::NormalKnownVariance(_) => pool_as!(parts, NormalKnownVariance),
+            Prior::NormalInverseGamma(_) => pool_as!(parts, NormalInverseGamma),
+            Prior::DirichletMultinomial(_) => pool_as!(parts, DirichletMultinomial),
+            Prior::InverseGammaVariance(_) => pool_as!(parts, InverseGammaVariance),
+        })
+    }
+}
+
+impl Prior {
+    /// A weakly informative prior of the same family: the same prior mean of
+    /// the data-scale quantity (and the same spread guess), worth one
+    /// observation in the family's own units (one trial, one unit of
+    /// exposure, one failure, one value, one draw). Used as the robust
+    /// component of a mixture.
+    pub fn unit_information(&self) -> Result<Prior> {
+        Ok(match self {
+            Self::BetaBinomial(p) => Self::BetaBinomial(BetaBinomial::from_mean_ess(
+                p.alpha / (p.alpha + p.beta),
+                1.0,
+            )?),
+            Self::GammaPoisson(p) => {
+                Self::GammaPoisson(GammaPoisson::from_mean_ess(p.alpha / p.beta, 1.0)?)
+            }
+            Self::GammaExponential(p) => {
+                Self::GammaExponential(GammaExponential::from_mean_ess(p.beta / p.alpha, 1.0)?)
+            }
+            Self::NormalKnownVariance(p) => {
+                Self::NormalKnownVariance(NormalKnownVariance::new(p.mu0, 1.0, p.sigma)?)
+            }
+            Self::NormalInverseGamma(p) => Self::NormalInverseGamma(
+                NormalInverseGamma::from_pseudo(p.mu0, 1.0, p.beta0 / p.alpha0, 1.0)?,
+            ),
+            Self::DirichletMultinomial(p) => {
+                let total = p.total();
+                let shares: Vec<f64> = p.alpha.iter().map(|a| a / total).collect();
+                let mut q = DirichletMultinomial::new(shares.clone(), p.names.clone())?;
+                q.alpha = shares;
+                Self::DirichletMultinomial(q)
+            }
+            Self::InverseGammaVariance(p) => Self::InverseGammaVariance(
+                InverseGammaVariance::from_mean_ess(p.beta / p.alpha, 1.0, p.mu)?,
+            ),
+        })
+    }
+}
