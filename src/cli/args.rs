@@ -25,6 +25,88 @@ pub enum Command {
     /// The prior (or, with --data, posterior) predictive of a future sample.
     #[command(after_help = FAMILIES)]
     Predict(PredictArgs),
+    /// Fit a prior to judgments: stated quantiles (of an unknown or of a
+    /// future observable), a mode with an interval, chips in bins, or
+    /// imagined future data.
+    #[command(after_help = FIT_HELP)]
+    Fit(FitArgs),
+}
+
+/// How the fitting methods are stated.
+const FIT_HELP: &str = "\
+METHODS (one per call)
+
+  --quantile [NAME:]P:VALUE ...   P(NAME <= VALUE) = P, repeated once per judgment;
+                                  NAME defaults to the family's first unknown
+                                  (e.g. mean_time:0.5:600, sigma:0.9:2.5).
+                                  Two judgments on a two-hyperparameter family are
+                                  solved exactly; more are fitted by least squares.
+  --observable FUTURE             with --quantile: the judgments are about a future
+                                  observable (e.g. --observable trials=20: the
+                                  successes in the next 20 trials), fitted through
+                                  the prior predictive; a count k reads P(X <= k) = P.
+  --mode M --interval LO:HI:PROB  most likely M, and PROB sure it lies in [LO, HI].
+  --bins E0,E1,...,EK --chips C1,...,CK
+                                  chips spread over bins; each edge becomes the
+                                  judgment P(X <= edge) = (chips left of it + 1/2)/(N + 1).
+  --mean M --imagined KEYS        with the prior mean M held, 'if the next sample
+                                  showed this, my estimate would be ...':
+                                  beta-binomial successes=K,trials=N,estimate=E;
+                                  gamma-poisson events=K,exposure=T,estimate=E;
+                                  gamma-exponential failures=D,time=T,estimate=MEAN_TIME;
+                                  normal-known-variance n=N,mean=YBAR,estimate=E;
+                                  inverse-gamma-variance n=N,ss=SS,estimate=VARIANCE.
+
+Known quantities go in --fixed: sigma=S (normal-known-variance), mu=M
+(inverse-gamma-variance). dirichlet-multinomial takes the mean shares in
+--shares S1;S2;... and fits the total ESS to quantiles of named shares
+(--quantile theta1:0.05:0.2 --quantile theta1:0.95:0.6).";
+
+/// `fit`.
+#[derive(Debug, Args)]
+pub struct FitArgs {
+    /// Family id.
+    #[arg(long)]
+    pub family: String,
+    /// Known quantities that are not hyperparameters: sigma=…, mu=….
+    #[arg(long, allow_hyphen_values = true)]
+    pub fixed: Option<String>,
+    /// Mean shares for dirichlet-multinomial, S1;S2;….
+    #[arg(long)]
+    pub shares: Option<String>,
+    /// Category names for dirichlet-multinomial, N1;N2;….
+    #[arg(long)]
+    pub names: Option<String>,
+    /// A judgment [NAME:]P:VALUE, meaning P(NAME <= VALUE) = P (repeatable).
+    #[arg(long = "quantile", allow_hyphen_values = true)]
+    pub quantiles: Vec<String>,
+    /// The future sample the --quantile judgments are about (e.g. trials=20).
+    #[arg(long)]
+    pub observable: Option<String>,
+    /// The most likely value (with --interval).
+    #[arg(long, allow_hyphen_values = true)]
+    pub mode: Option<String>,
+    /// LO:HI:PROB, the probability of lying in [LO, HI] (with --mode).
+    #[arg(long, allow_hyphen_values = true)]
+    pub interval: Option<String>,
+    /// Bin edges E0,E1,…,EK (with --chips).
+    #[arg(long, allow_hyphen_values = true)]
+    pub bins: Option<String>,
+    /// Chips per bin C1,…,CK (with --bins).
+    #[arg(long)]
+    pub chips: Option<String>,
+    /// The prior mean held fixed (with --imagined).
+    #[arg(long, allow_hyphen_values = true)]
+    pub mean: Option<String>,
+    /// The imagined sample and the estimate it would lead to (with --mean).
+    #[arg(long)]
+    pub imagined: Option<String>,
+    /// The unknown a mode/interval or chips judgment is about (default: the first).
+    #[arg(long)]
+    pub parameter: Option<String>,
+    /// Print JSON instead of a table.
+    #[arg(long)]
+    pub json: bool,
 }
 
 /// Which prior.

@@ -227,3 +227,10 @@ pub fn predict(
     m.insert("predictive".into(), pred);
     finish(m)
 }
+
+/// `fit --json`: the fitted prior (usable as --prior) and the `fit` object.
+pub fn fit(prior: &crate::family::Prior, fit: &Value) -> String {
+    let mut m = head(&Belief::One(prior.clone()));
+    m.insert("fit".into(), fit.clone());
+    finish(m)
+}

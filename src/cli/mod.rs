@@ -1,6 +1,7 @@
 //! The command-line front end: parse, compute through the core, print.
 
 mod args;
+mod fitting;
 mod help;
 mod json;
 mod table;
@@ -186,6 +187,14 @@ fn run(command: &Command) -> Result<String> {
             })
         }
         Command::Predict(a) => predict(a),
+        Command::Fit(a) => {
+            let out = fitting::run(a)?;
+            Ok(if a.json {
+                json::fit(&out.prior, &out.fit)
+            } else {
+                table::fit(&out.prior, &out.fit)
+            })
+        }
     }
 }
 
@@ -208,7 +217,7 @@ fn predict(a: &PredictArgs) -> Result<String> {
 }
 
 /// A comma-separated, repeatable list of numbers.
-fn numbers(option: &str, items: &[String]) -> Result<Vec<f64>> {
+pub(crate) fn numbers(option: &str, items: &[String]) -> Result<Vec<f64>> {
     items
         .iter()
         .flat_map(|s| s.split(','))
@@ -218,7 +227,7 @@ fn numbers(option: &str, items: &[String]) -> Result<Vec<f64>> {
         .collect()
 }
 
-fn parse_number(option: &str, text: &str) -> Result<f64> {
+pub(crate) fn parse_number(option: &str, text: &str) -> Result<f64> {
     let v: f64 = text.parse().map_err(|_| Error::NotANumber {
         context: option.to_owned(),
         key: option.to_owned(),

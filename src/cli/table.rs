@@ -237,3 +237,69 @@ pub fn predict(used: &Belief, summaries: &[PredictiveSummary], posterior: bool) 
     out.push_str(CAUTION);
     out
 }
+
+/// `fit`: the prior as --prior text, and stated against fitted probabilities.
+pub fn fit(prior: &crate::family::Prior, fit: &serde_json::Value) -> String {
+    let mut out = String::new();
+    header(&mut out, &Belief::One(prior.clone()), "fitted prior");
+    let keys: Vec<String> = prior
+        .hyperparameters()
+        .iter()
+        .map(|(k, v)| match v {
+            Value::Number(x) => format!("{k}={x}"),
+            Value::List(xs) => format!(
+                "{k}={}",
+                xs.iter()
+                    .map(|x| x.to_string())
+                    .collect::<Vec<_>>()
+                    .join(";")
+            ),
+        })
+        .collect();
+    let _ = writeln!(out, "  as --prior: {}", keys.join(","));
+    let get = |k: &str| fit[k].as_f64();
+    let _ = writeln!(out, "\nfit: {}", fit["method"].as_str().unwrap_or(""));
+    let mut r = Vec::new();
+    if let Some(js) = fit["judgments"].as_array()
+        && !js.is_empty()
+    {
+        r.push((
+            "judgment".to_owned(),
+            format!("{:>12}  {:>12}  {:>12}", "value", "stated p", "fitted p"),
+        ));
+        for j in js {
+            r.push((
+                j["parameter"].as_str().unwrap_or("").to_owned(),
+                format!(
+                    "{:>12}  {:>12}  {:>12}",
+                    fmt(j["value"].as_f64()),
+                    fmt(j["p"].as_f64()),
+                    fmt(j["fitted_p"].as_f64())
+                ),
+            ));
+        }
+    }
+    if let Some(i) = fit.get("interval") {
+        r.push((
+            format!(
+                "P({} <= {} <= {})",
+                fmt(i["lower"].as_f64()),
+                fit["parameter"].as_str().unwrap_or(""),
+                fmt(i["upper"].as_f64())
+            ),
+            format!(
+                "stated {}, fitted {}",
+                fmt(i["p"].as_f64()),
+                fmt(i["fitted_p"].as_f64())
+            ),
+        ));
+    }
+    r.push(("objective".to_owned(), fmt(get("objective"))));
+    r.push((
+        "largest probability error".to_owned(),
+        fmt(get("max_abs_probability_error")),
+    ));
+    rows(&mut out, &r);
+    out.push_str(CAUTION);
+    out
+}

@@ -10,6 +10,7 @@ pub mod mixture;
 
 pub use continuous::Continuous;
 pub use discrete::Discrete;
+pub use guess::normal_quantile as guess_normal_quantile;
 pub use interval::Interval;
 pub use law::Law;
 pub use mixture::MixtureLaw;

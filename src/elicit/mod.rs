@@ -2,6 +2,9 @@
 //! elicitation methods, pools of several experts and robust mixtures.
 
 pub mod belief;
+pub mod fit;
+mod lsq;
+pub mod methods;
 pub mod mixture;
 
 pub use belief::Belief;
