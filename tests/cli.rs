@@ -439,3 +439,355 @@ fn extreme_hyperparameters_never_print_nan() {
         }
     }
 }
+
+#[test]
+fn fit_prints_the_contract() {
+    let v = json(&[
+        "fit",
+        "--family",
+        "beta-binomial",
+        "--quantile",
+        "0.5:0.3",
+        "--quantile",
+        "0.9:0.5",
+        "--json",
+    ]);
+    assert_eq!(v["family"], "beta-binomial");
+    let f = &v["fit"];
+    assert_eq!(f["method"], "exact");
+    assert!(f["max_abs_probability_error"].as_f64().unwrap() < 1e-12);
+    let js = f["judgments"].as_array().unwrap();
+    assert_eq!(js.len(), 2);
+    assert_eq!(js[1]["p"], 0.9);
+    assert_eq!(js[1]["value"], 0.5);
+    // The objective is the plain sum of squared probability errors.
+    let sum: f64 = js
+        .iter()
+        .map(|j| (j["fitted_p"].as_f64().unwrap() - j["p"].as_f64().unwrap()).powi(2))
+        .sum();
+    let v3 = json(&[
+        "fit",
+        "--family",
+        "beta-binomial",
+        "--quantile",
+        "0.1:0.1",
+        "--quantile",
+        "0.5:0.3",
+        "--quantile",
+        "0.9:0.5",
+        "--json",
+    ]);
+    let js3 = v3["fit"]["judgments"].as_array().unwrap();
+    let sum3: f64 = js3
+        .iter()
+        .map(|j| (j["fitted_p"].as_f64().unwrap() - j["p"].as_f64().unwrap()).powi(2))
+        .sum();
+    assert!((v3["fit"]["objective"].as_f64().unwrap() - sum3).abs() < 1e-15 && sum < 1e-20);
+    // The hyperparameters are usable as --prior.
+    let h = &v["hyperparameters"];
+    let prior = format!("alpha={},beta={}", h["alpha"], h["beta"]);
+    let d = json(&[
+        "describe",
+        "--family",
+        "beta-binomial",
+        "--prior",
+        &prior,
+        "--prob",
+        "0.5,0.9",
+        "--json",
+    ]);
+    let q = d["parameters"][0]["quantiles"].as_array().unwrap();
+    assert!((q[0]["value"].as_f64().unwrap() - 0.3).abs() < 1e-12);
+    // A named parameter and negative values with '='.
+    let v = json(&[
+        "fit",
+        "--family",
+        "gamma-exponential",
+        "--quantile",
+        "mean_time:0.5:600",
+        "--quantile",
+        "mean_time:0.95:2000",
+        "--json",
+    ]);
+    assert_eq!(v["fit"]["judgments"][0]["parameter"], "mean_time");
+    let v = json(&[
+        "fit",
+        "--family",
+        "normal-known-variance",
+        "--fixed",
+        "sigma=2",
+        "--quantile=0.25:-1.5",
+        "--quantile=0.75:0.5",
+        "--json",
+    ]);
+    assert!((v["hyperparameters"]["mu0"].as_f64().unwrap() + 0.5).abs() < 1e-9);
+}
+
+#[test]
+fn fit_methods_each_carry_the_fit_object() {
+    for args in [
+        vec![
+            "fit",
+            "--family",
+            "beta-binomial",
+            "--mode",
+            "0.2",
+            "--interval",
+            "0.1:0.4:0.9",
+            "--json",
+        ],
+        vec![
+            "fit",
+            "--family",
+            "beta-binomial",
+            "--bins",
+            "0,0.1,0.2,0.4,1",
+            "--chips",
+            "2,5,3,0",
+            "--json",
+        ],
+        vec![
+            "fit",
+            "--family",
+            "gamma-poisson",
+            "--mean",
+            "2",
+            "--imagined",
+            "events=30,exposure=10,estimate=2.5",
+            "--json",
+        ],
+        vec![
+            "fit",
+            "--family",
+            "gamma-poisson",
+            "--observable",
+            "exposure=500",
+            "--quantile",
+            "0.5:4",
+            "--quantile",
+            "0.9:10",
+            "--json",
+        ],
+        vec![
+            "fit",
+            "--family",
+            "dirichlet-multinomial",
+            "--shares",
+            "0.5;0.3;0.2",
+            "--quantile",
+            "theta1:0.05:0.3",
+            "--quantile",
+            "theta1:0.95:0.7",
+            "--json",
+        ],
+    ] {
+        let v = json(&args);
+        let f = &v["fit"];
+        for key in [
+            "method",
+            "objective",
+            "max_abs_probability_error",
+            "judgments",
+        ] {
+            assert!(f.get(key).is_some(), "{args:?} lacks fit.{key}");
+        }
+        assert!(v.get("hyperparameters").is_some());
+    }
+}
+
+#[test]
+fn mixtures_and_pools_on_the_command_line() {
+    let v = json(&[
+        "update",
+        "--family",
+        "beta-binomial",
+        "--component",
+        "0.6:alpha=2,beta=18",
+        "--component",
+        "0.4:alpha=6,beta=6",
+        "--data",
+        "successes=7,trials=20",
+        "--json",
+    ]);
+    assert!(
+        v.get("hyperparameters").is_none(),
+        "a mixture has no single set of hyperparameters"
+    );
+    let comps = v["components"].as_array().unwrap();
+    assert_eq!(comps.len(), 2);
+    let w: f64 = comps.iter().map(|c| c["weight"].as_f64().unwrap()).sum();
+    assert!((w - 1.0).abs() < 1e-12);
+    assert_eq!(comps[0]["hyperparameters"]["alpha"], 9.0);
+    assert_eq!(v["prior"]["components"][0]["weight"], 0.6);
+    let v = json(&[
+        "describe",
+        "--family",
+        "beta-binomial",
+        "--component",
+        "0.5:alpha=2,beta=8",
+        "--component",
+        "0.5:alpha=8,beta=2",
+        "--pool",
+        "log",
+        "--json",
+    ]);
+    assert_eq!(v["hyperparameters"]["alpha"], 5.0);
+    assert_eq!(v["pool"]["method"], "log");
+    let v = json(&[
+        "describe",
+        "--family",
+        "gamma-poisson",
+        "--prior",
+        "alpha=10,beta=10",
+        "--robust",
+        "0.2",
+        "--json",
+    ]);
+    assert_eq!(v["components"].as_array().unwrap().len(), 2);
+    assert_eq!(v["components"][1]["pseudo_observations"]["ess"], 1.0);
+    let v = json(&[
+        "predict",
+        "--family",
+        "beta-binomial",
+        "--component",
+        "0.5:alpha=2,beta=8",
+        "--component",
+        "0.5:alpha=8,beta=2",
+        "--future",
+        "trials=10",
+        "--json",
+    ]);
+    assert!((v["predictive"]["mean"].as_f64().unwrap() - 5.0).abs() < 1e-12);
+}
+
+#[test]
+fn bad_elicitation_input_gets_one_clear_message() {
+    let fit = ["fit", "--family", "beta-binomial"];
+    let with = |extra: &[&'static str]| -> Vec<&'static str> {
+        fit.iter().copied().chain(extra.iter().copied()).collect()
+    };
+    fails_with(&with(&[]), "fit needs judgments");
+    fails_with(
+        &with(&["--quantile", "0.5:0.3", "--quantile", "0.9:0.2"]),
+        "judgments 2 and 1 are not increasing",
+    );
+    fails_with(
+        &with(&["--quantile", "0.5:0.3", "--quantile", "1.2:0.5"]),
+        "judgment 2: probability 1.2 must lie strictly between 0 and 1",
+    );
+    fails_with(
+        &with(&["--quantile", "0.5:1.3", "--quantile", "0.9:0.5"]),
+        "judgment 1: value 1.3 for theta must be inside",
+    );
+    fails_with(
+        &with(&["--quantile", "0.5"]),
+        "--quantile 1: '0.5' is not of the form [NAME:]P:VALUE",
+    );
+    fails_with(
+        &with(&["--quantile", "0.5:x"]),
+        "--quantile 1 value = 'x' is not a number",
+    );
+    fails_with(
+        &with(&[
+            "--quantile",
+            "0.5:0.3",
+            "--mode",
+            "0.2",
+            "--interval",
+            "0.1:0.4:0.9",
+        ]),
+        "give one fitting method per call",
+    );
+    fails_with(
+        &with(&["--mode", "0.2"]),
+        "--mode and --interval go together",
+    );
+    fails_with(
+        &with(&["--mode", "0.5", "--interval", "0.1:0.4:0.9"]),
+        "the mode 0.5 must lie inside the interval",
+    );
+    fails_with(
+        &with(&["--bins", "0,0.5,1", "--chips", "1"]),
+        "3 bin edges need 2 chip counts; got 1",
+    );
+    fails_with(
+        &with(&["--bins", "0,0.5,0.4", "--chips", "1,1"]),
+        "bin edges must increase: 0.5 then 0.4",
+    );
+    fails_with(
+        &with(&[
+            "--mean",
+            "0.2",
+            "--imagined",
+            "successes=10,trials=20,estimate=0.2",
+        ]),
+        "does not move",
+    );
+    fails_with(
+        &with(&[
+            "--mean",
+            "0.2",
+            "--imagined",
+            "succeses=10,trials=20,estimate=0.3",
+        ]),
+        "unknown key 'succeses'",
+    );
+    fails_with(
+        &[
+            "describe",
+            "--family",
+            "beta-binomial",
+            "--component",
+            "0.5:alpha=2,beta=8",
+            "--component",
+            "0.4:alpha=8,beta=2",
+        ],
+        "mixture weights must sum to 1; they sum to 0.9",
+    );
+    fails_with(
+        &[
+            "describe",
+            "--family",
+            "beta-binomial",
+            "--prior",
+            "alpha=2,beta=8",
+            "--component",
+            "1:alpha=2,beta=8",
+        ],
+        "give either --prior or --component, not both",
+    );
+    fails_with(
+        &[
+            "describe",
+            "--family",
+            "beta-binomial",
+            "--component",
+            "alpha=2,beta=8",
+        ],
+        "is not of the form WEIGHT:key=value",
+    );
+    fails_with(
+        &[
+            "describe",
+            "--family",
+            "beta-binomial",
+            "--component",
+            "1:alpha=2,beta=8",
+            "--pool",
+            "geometric",
+        ],
+        "--pool = 'geometric' is not a pooling method; use linear or log",
+    );
+    fails_with(
+        &[
+            "describe",
+            "--family",
+            "beta-binomial",
+            "--prior",
+            "alpha=2,beta=8",
+            "--robust",
+            "1.5",
+        ],
+        "--robust = 1.5 is not allowed",
+    );
+}

@@ -139,3 +139,46 @@ proptest! {
         }
     }
 }
+
+mod round_trip {
+    use priorwright::elicit::fit::{Fixed, Judgment, Scale, fit};
+    use priorwright::family::{Prior, Value};
+    use proptest::prelude::*;
+
+    fn moderate() -> impl Strategy<Value = f64> {
+        (-0.7f64..2.3).prop_map(|e| 10f64.powf(e))
+    }
+
+    fn hyper(p: &Prior, k: &str) -> f64 {
+        match p.hyperparameters().into_iter().find(|(n, _)| *n == k) {
+            Some((_, Value::Number(x))) => x,
+            _ => f64::NAN,
+        }
+    }
+
+    proptest! {
+        #![proptest_config(ProptestConfig::with_cases(150))]
+
+        /// Judgments read off a known prior are fitted back to it.
+        #[test]
+        fn judgments_from_a_prior_fit_back_to_it(a in moderate(), b in moderate(), which in 0usize..3) {
+            let (family, text, name) = [
+                ("beta-binomial", format!("alpha={a},beta={b}"), "theta"),
+                ("gamma-exponential", format!("alpha={a},beta={b}"), "mean_time"),
+                ("inverse-gamma-variance", format!("alpha={a},beta={b}"), "sigma"),
+            ][which].clone();
+            let truth = Prior::parse(family, &text).unwrap();
+            let law = truth.marginals().into_iter().find(|m| m.name == name).unwrap().distribution;
+            let judgments: Vec<Judgment> = [0.1, 0.5, 0.9]
+                .iter()
+                .map(|p| Judgment { parameter: Some(name.to_owned()), p: *p, value: law.quantile(*p) })
+                .collect();
+            let f = fit(family, &Fixed::default(), Scale::Unknowns, &judgments).unwrap();
+            for k in ["alpha", "beta"] {
+                let (got, want) = (hyper(&f.prior, k), hyper(&truth, k));
+                prop_assert!(((got - want) / want).abs() < 1e-6, "{family} {k}: {got} vs {want}");
+            }
+            prop_assert!(f.objective < 1e-20);
+        }
+    }
+}

@@ -13,7 +13,7 @@
 //! probabilities are met exactly (reported as `exact`).
 
 use super::lsq;
-use crate::distribution::{Discrete, guess_normal_quantile};
+use crate::distribution::{Continuous, Discrete, guess_normal_quantile};
 use crate::error::{Error, Result};
 use crate::family::{
     BetaBinomial, DirichletMultinomial, Future, GammaExponential, GammaPoisson,
@@ -468,6 +468,53 @@ fn start(
     })
 }
 
+/// Shape grid with the scale fitted to one judgment, for gamma and inverse-gamma
+/// laws on their unknown's own scale; returns the best (coordinates, objective).
+fn profile_start(
+    family: &str,
+    scale: Scale,
+    judgments: &[Judgment],
+    targets: &[String],
+    objective: &dyn Fn(&[f64]) -> f64,
+) -> Option<(Vec<f64>, f64)> {
+    if scale != Scale::Unknowns {
+        return None;
+    }
+    let (k, j) = judgments
+        .iter()
+        .enumerate()
+        .min_by(|a, b| (a.1.p - 0.5).abs().total_cmp(&(b.1.p - 0.5).abs()))?;
+    let target = targets.get(k)?.as_str();
+    let mut best: Option<(Vec<f64>, f64)> = None;
+    for step in 0..25 {
+        let ln_a = -7.0 + 0.7 * f64::from(step);
+        let a = ln_a.exp();
+        let unit = Continuous::Gamma {
+            shape: a,
+            rate: 1.0,
+        };
+        // ln β that puts `j` exactly on the law's p-quantile.
+        let ln_b = match (family, target) {
+            ("gamma-poisson" | "gamma-exponential", "lambda") => {
+                (unit.quantile(j.p) / j.value).ln()
+            }
+            ("gamma-exponential", "mean_time") | ("inverse-gamma-variance", "sigma2") => {
+                (j.value * unit.quantile(1.0 - j.p)).ln()
+            }
+            ("inverse-gamma-variance", "sigma") => {
+                (j.value * j.value * unit.quantile(1.0 - j.p)).ln()
+            }
+            _ => return None,
+        };
+        let t = vec![ln_a, ln_b];
+        let v = objective(&t);
+        if v.is_finite() && best.as_ref().is_none_or(|b| v < b.1) {
+            best = Some((t, v));
+        }
+    }
+    best
+}
+
 /// Index of a dirichlet category from its output name.
 fn judged_category(name: &str, fixed: &Fixed) -> usize {
     if let Some(names) = &fixed.names
@@ -506,26 +553,48 @@ pub fn fit_with(
     // Any valid prior of the family serves to check names and supports.
     let probe = (model.build)(&vec![0.0; model.free])?;
     let targets = check(&probe, scale, judgments, strict)?;
+    // Where each judgment's law sits among the marginals (no per-call lookups).
+    let names: Vec<String> = probe.marginals().into_iter().map(|m| m.name).collect();
+    let index: Vec<usize> = targets
+        .iter()
+        .map(|t| names.iter().position(|n| n == t).unwrap_or(0))
+        .collect();
     let residuals = |t: &[f64]| -> Option<Vec<f64>> {
         let prior = (model.build)(t).ok()?;
-        judgments
-            .iter()
-            .zip(&targets)
-            .map(|(j, tg)| {
-                judged_cdf(&prior, scale, tg, j.value)
-                    .ok()
-                    .filter(|f| f.is_finite())
-                    .map(|f| f - j.p)
-            })
-            .collect()
+        match scale {
+            Scale::Unknowns => {
+                let marginals = prior.marginals();
+                judgments
+                    .iter()
+                    .zip(&index)
+                    .map(|(j, k)| {
+                        let f = marginals.get(*k)?.distribution.cdf(j.value);
+                        f.is_finite().then_some(f - j.p)
+                    })
+                    .collect()
+            }
+            Scale::Observable(_) => judgments
+                .iter()
+                .zip(&targets)
+                .map(|(j, tg)| {
+                    judged_cdf(&prior, scale, tg, j.value)
+                        .ok()
+                        .filter(|f| f.is_finite())
+                        .map(|f| f - j.p)
+                })
+                .collect(),
+        }
     };
     let objective =
         |t: &[f64]| residuals(t).map_or(f64::INFINITY, |r| r.iter().map(|x| x * x).sum::<f64>());
-    // Moment matching, then its spread at a few multiples: the best is the start.
+    // Moment matching, then its concentration scanned over e^-6 … e^6 times:
+    // the best is the start (moment matching alone misleads for J-shaped laws).
     let base = start(family, fixed, scale, judgments, &targets)?;
     let mut best = base.clone();
     let mut best_value = objective(&base);
-    for shift in [-3.0, -1.5, -0.7, 0.7, 1.5, 3.0] {
+    for shift in [
+        -6.0, -4.5, -3.0, -2.0, -1.0, -0.5, 0.5, 1.0, 2.0, 3.0, 4.5, 6.0,
+    ] {
         let mut t = base.clone();
         // Scaling every count-like coordinate together changes the concentration.
         for (i, v) in t.iter_mut().enumerate() {
@@ -538,6 +607,38 @@ pub fn fit_with(
             best = t;
             best_value = value;
         }
+    }
+    // Then each coordinate alone (location and scale), greedily: wide
+    // judgments make moment-matched locations unreliable.
+    let spread = {
+        let vals: Vec<f64> = judgments.iter().map(|j| j.value).collect();
+        let (lo, hi) = vals
+            .iter()
+            .fold((f64::INFINITY, f64::NEG_INFINITY), |(a, b), v| {
+                (a.min(*v), b.max(*v))
+            });
+        (hi - lo).max(1e-12)
+    };
+    for i in 0..best.len() {
+        let additive = family.starts_with("normal") && i == 0;
+        for step in [-8.0, -4.0, -2.0, -1.0, -0.5, 0.5, 1.0, 2.0, 4.0, 8.0] {
+            let mut t = best.clone();
+            t[i] += if additive { 0.25 * step * spread } else { step };
+            let value = objective(&t);
+            if value < best_value {
+                best = t;
+                best_value = value;
+            }
+        }
+    }
+    // A poor start (judgments far from what moments suggest, as for very heavy
+    // tails): profile over the shape, the scale then set so that the judgment
+    // nearest the median is met exactly.
+    if best_value > 1e-2
+        && let Some(profile) = profile_start(family, scale, judgments, &targets, &objective)
+        && profile.1 < best_value
+    {
+        (best, best_value) = profile;
     }
     if !best_value.is_finite() {
         return Err(Error::Rule(

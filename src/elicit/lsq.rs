@@ -1,6 +1,6 @@
 //! Levenberg–Marquardt least squares (Moré, "The Levenberg–Marquardt
 //! algorithm: implementation and theory", 1978) for the handful of
-//! hyperparameters a prior has, with a central-difference Jacobian. A step is
+//! hyperparameters a prior has, with a forward-difference Jacobian. A step is
 //! only taken if it lowers the objective, so the result is never worse than
 //! the start; on a square system (as many judgments as free hyperparameters)
 //! it is Newton's method and converges to the exact root.
@@ -43,7 +43,7 @@ pub fn minimize(residuals: &dyn Fn(&[f64]) -> Option<Vec<f64>>, start: &[f64]) -
             }
         }
         let mut improved = false;
-        for _ in 0..40 {
+        for _ in 0..12 {
             let mut m = jtj.clone();
             for (a, row) in m.iter_mut().enumerate() {
                 row[a] += lambda * jtj[a][a].max(1e-300);
@@ -63,7 +63,9 @@ pub fn minimize(residuals: &dyn Fn(&[f64]) -> Option<Vec<f64>>, start: &[f64]) -
                 let gain = best - value;
                 best = value;
                 lambda = (lambda / 10.0).max(1e-12);
-                improved = !(small || gain <= 1e-16 * best);
+                // Stop once a step gains less than 1e-12 of the objective: the
+                // hyperparameters have then settled far below 1e-6 relative.
+                improved = !(small || gain <= 1e-12 * best);
                 break;
             }
             lambda *= 10.0;
