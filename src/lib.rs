@@ -5,8 +5,11 @@
 
 pub mod analysis;
 pub mod cli;
+pub mod data;
 pub mod distribution;
 pub mod elicit;
 pub mod error;
+pub mod export;
 pub mod family;
 pub mod numeric;
+pub mod project;

@@ -30,6 +30,38 @@ pub enum Command {
     /// imagined future data.
     #[command(after_help = FIT_HELP)]
     Fit(FitArgs),
+    /// Summaries of every expert's prior and the pooled prior of a project,
+    /// and the posterior with its data (the project's own, or --data FILE).
+    Check(CheckArgs),
+    /// Write a project's pooled prior as model code: stan, pymc, numpyro,
+    /// jags, r, brms, scipy or json.
+    Export(ExportArgs),
+}
+
+/// `check`.
+#[derive(Debug, Args)]
+pub struct CheckArgs {
+    /// The project file.
+    pub project: std::path::PathBuf,
+    /// A data file to read with the project's column mapping (instead of its stored statistics).
+    #[arg(long)]
+    pub data: Option<std::path::PathBuf>,
+    /// Print JSON instead of a table.
+    #[arg(long)]
+    pub json: bool,
+}
+
+/// `export`.
+#[derive(Debug, Args)]
+pub struct ExportArgs {
+    /// The project file.
+    pub project: std::path::PathBuf,
+    /// Target: stan, pymc, numpyro, jags, r, brms, scipy or json.
+    #[arg(long)]
+    pub to: String,
+    /// Write to this file (atomically) instead of standard output.
+    #[arg(long)]
+    pub out: Option<std::path::PathBuf>,
 }
 
 /// How the fitting methods are stated.

@@ -3,8 +3,9 @@
 mod args;
 mod fitting;
 mod help;
-mod json;
-mod table;
+pub(crate) mod json;
+mod project;
+pub(crate) mod table;
 
 pub use args::Cli;
 use args::{Command, PredictArgs, PriorArgs, SummaryArgs};
@@ -117,7 +118,7 @@ fn start(a: &PriorArgs) -> Result<Start> {
     };
     if let Some(text) = &a.robust {
         let w = crate::error::probability("--robust", parse_number("--robust", text)?)?;
-        belief = Belief::Mix(robust(&belief, w)?);
+        belief = Belief::Mix(crate::elicit::mixture::robust(&belief, w)?);
     }
     Ok(Start { belief, pooled })
 }
@@ -132,24 +133,6 @@ fn component(family: &str, i: usize, text: &str) -> Result<(f64, Prior)> {
     };
     let weight = parse_number(&format!("--component {} weight", i + 1), w.trim())?;
     Ok((weight, Prior::parse(family, rest)?))
-}
-
-/// The belief mixed with a unit-information component at weight `w`.
-fn robust(belief: &Belief, w: f64) -> Result<Mixture> {
-    let mut parts: Vec<(f64, Prior)> = match belief {
-        Belief::One(p) => vec![(1.0 - w, p.clone())],
-        Belief::Mix(m) => m
-            .components()
-            .iter()
-            .map(|(v, p)| ((1.0 - w) * v, p.clone()))
-            .collect(),
-    };
-    let centre = match belief {
-        Belief::One(p) => p.clone(),
-        Belief::Mix(m) => m.log_pool()?,
-    };
-    parts.push((w, centre.unit_information()?));
-    Mixture::new(parts)
 }
 
 /// Runs one command and returns what it prints.
@@ -187,6 +170,8 @@ fn run(command: &Command) -> Result<String> {
             })
         }
         Command::Predict(a) => predict(a),
+        Command::Check(a) => project::check(a),
+        Command::Export(a) => project::export(a),
         Command::Fit(a) => {
             let out = fitting::run(a)?;
             Ok(if a.json {

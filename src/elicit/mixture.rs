@@ -245,3 +245,21 @@ impl CountMixture {
         )
     }
 }
+
+/// The belief mixed with a unit-information component at weight `w` (a
+/// robust prior): the elicited part keeps 1 − w, split as before.
+pub fn robust(belief: &super::Belief, w: f64) -> Result<Mixture> {
+    crate::error::probability("robust weight", w)?;
+    let (mut parts, centre): (Vec<(f64, Prior)>, Prior) = match belief {
+        super::Belief::One(p) => (vec![(1.0 - w, p.clone())], p.clone()),
+        super::Belief::Mix(m) => (
+            m.components()
+                .iter()
+                .map(|(v, p)| ((1.0 - w) * v, p.clone()))
+                .collect(),
+            m.log_pool()?,
+        ),
+    };
+    parts.push((w, centre.unit_information()?));
+    Mixture::new(parts)
+}

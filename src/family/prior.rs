@@ -17,8 +17,10 @@ pub const FAMILY_IDS: [&str; 7] = [
 ];
 
 /// A prior of one of the seven families.
+///
+/// Serialised externally tagged, `BetaBinomial((alpha: 2.0, beta: 8.0))` in RON,
+/// which every serde format reads back.
 #[derive(Clone, Debug, PartialEq, serde::Serialize, serde::Deserialize)]
-#[serde(tag = "family", rename_all = "kebab-case")]
 pub enum Prior {
     /// θ ~ Beta.
     BetaBinomial(BetaBinomial),
@@ -38,7 +40,6 @@ pub enum Prior {
 
 /// Observed data for a prior of the matching family.
 #[derive(Clone, Debug, PartialEq, serde::Serialize, serde::Deserialize)]
-#[serde(tag = "family", rename_all = "kebab-case")]
 pub enum Data {
     /// Successes in trials.
     BetaBinomial(Trials),
@@ -414,6 +415,11 @@ impl Prior {
         Ok(with_data!(self, data, p, d => p.ln_marginal_likelihood(d)))
     }
 
+    /// Power prior: updated by historical data scaled by a0 ∈ (0, 1].
+    pub fn with_history(&self, history: &Data, a0: f64) -> Result<Prior> {
+        Ok(with_data!(self, history, p, d => Prior::from(p.with_history(d, a0)?)))
+    }
+
     /// Prior's share of the posterior information.
     pub fn prior_share(&self, data: &Data) -> Result<f64> {
         Ok(with_data!(self, data, p, d => p.prior_share(d)))
@@ -518,5 +524,46 @@ impl Prior {
                 InverseGammaVariance::from_mean_ess(p.beta / p.alpha, 1.0, p.mu)?,
             ),
         })
+    }
+}
+
+impl Prior {
+    /// Checks the hyperparameters through the family's constructor (values
+    /// read from a file bypass it).
+    pub fn validate(&self) -> Result<()> {
+        match self {
+            Self::BetaBinomial(p) => BetaBinomial::new(p.alpha, p.beta).map(drop),
+            Self::GammaPoisson(p) => GammaPoisson::new(p.alpha, p.beta).map(drop),
+            Self::GammaExponential(p) => GammaExponential::new(p.alpha, p.beta).map(drop),
+            Self::NormalKnownVariance(p) => {
+                NormalKnownVariance::new(p.mu0, p.kappa0, p.sigma).map(drop)
+            }
+            Self::NormalInverseGamma(p) => {
+                NormalInverseGamma::new(p.mu0, p.kappa0, p.alpha0, p.beta0).map(drop)
+            }
+            Self::DirichletMultinomial(p) => {
+                DirichletMultinomial::new(p.alpha.clone(), p.names.clone()).map(drop)
+            }
+            Self::InverseGammaVariance(p) => {
+                InverseGammaVariance::new(p.alpha, p.beta, p.mu).map(drop)
+            }
+        }
+    }
+}
+
+impl Data {
+    /// Checks the statistics through the constructors (whole counts, successes ≤ trials, …).
+    pub fn validate(&self) -> Result<()> {
+        match self {
+            Self::BetaBinomial(d) => Trials::observed(d.successes, d.trials).map(drop),
+            Self::GammaPoisson(d) => EventCounts::observed(d.events, d.exposure).map(drop),
+            Self::GammaExponential(d) => LifeTest::observed(d.failures, d.time).map(drop),
+            Self::NormalKnownVariance(d) => MeanStats::observed(d.n, d.mean, d.variance).map(drop),
+            Self::NormalInverseGamma(d) => {
+                NormalSample::observed(d.n, d.mean, Some(d.variance)).map(drop)
+            }
+            Self::DirichletMultinomial(d) => Counts::observed(d.counts.clone()).map(drop),
+            Self::InverseGammaVariance(d) => SquaresAboutMean::observed(d.n, d.ss).map(drop),
+        }
     }
 }

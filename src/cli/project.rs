@@ -1,0 +1,217 @@
+//! `priorwright check` and `priorwright export` on a project file.
+
+use super::args::{CheckArgs, ExportArgs};
+use crate::analysis::summary::{self, SummaryOptions};
+use crate::data::{ReadOptions, read_file};
+use crate::elicit::Belief;
+use crate::error::{Error, Result};
+use crate::export::{self, TARGETS, Target};
+use crate::project::{self, Project};
+use serde_json::{Value, json};
+
+fn load(path: &std::path::Path) -> Result<Project> {
+    project::load(path).map_err(|e| Error::Rule(e.to_string()))
+}
+
+/// Summary JSON of one belief (as `describe --json` prints it).
+fn belief_json(b: &Belief) -> Result<Value> {
+    let params = summary::summarize_laws(&b.marginals(), &SummaryOptions::default())?;
+    let text = super::json::describe(b, None, &params);
+    serde_json::from_str(&text).map_err(|e| Error::Rule(e.to_string()))
+}
+
+/// `check`.
+pub fn check(a: &CheckArgs) -> Result<String> {
+    let p = load(&a.project)?;
+    let belief = p.belief()?;
+    // The data: a file read with the project's mapping, or the stored statistics.
+    let data = match &a.data {
+        Some(file) => {
+            let mapping = p
+                .data
+                .iter()
+                .find_map(|d| d.mapping.clone())
+                .ok_or_else(|| {
+                    Error::Rule(format!(
+                        "{}: the project has no column mapping to read {} with",
+                        a.project.display(),
+                        file.display()
+                    ))
+                })?;
+            let first = &p.experts[0].prior;
+            let r = read_file(file, &mapping, first, ReadOptions::default())
+                .map_err(|e| Error::Rule(e.to_string()))?;
+            vec![(file.display().to_string(), r.data, r.rows, r.missing)]
+        }
+        None => p
+            .data
+            .iter()
+            .map(|d| (d.name.clone(), d.statistics.clone(), d.rows, d.missing))
+            .collect(),
+    };
+    let mut experts = Vec::new();
+    for e in &p.experts {
+        let mut v = belief_json(&Belief::One(e.prior.clone()))?;
+        v["name"] = json!(e.name);
+        v["weight"] = json!(e.weight);
+        experts.push(v);
+    }
+    // Data files that have moved: the stored statistics are used, and we say so.
+    let folder = a
+        .project
+        .parent()
+        .map(std::path::Path::to_path_buf)
+        .unwrap_or_default();
+    let notes: Vec<String> = p
+        .data
+        .iter()
+        .filter_map(|d| d.path.as_ref())
+        .filter(|f| !folder.join(f).exists())
+        .map(|f| {
+            format!(
+                "data file {} is missing; the statistics stored in the project are used",
+                folder.join(f).display()
+            )
+        })
+        .collect();
+    let mut out = json!({
+        "project": p.scenario.title,
+        "family": p.scenario.family,
+        "high_stakes": p.scenario.high_stakes,
+        "experts": experts,
+        "pooled": belief_json(&belief)?,
+        "notes": notes,
+        "pooling": { "method": match p.pooling.method { crate::elicit::PoolMethod::Linear => "linear", crate::elicit::PoolMethod::Log => "log" }, "robust_weight": p.pooling.robust_weight },
+    });
+    if !data.is_empty() {
+        let mut post = belief.clone();
+        let mut sources = Vec::new();
+        let mut ln_ml = 0.0;
+        let mut conflict = None;
+        let mut share = None;
+        for (name, d, rows, missing) in &data {
+            ln_ml += post.ln_marginal_likelihood(d)?;
+            if conflict.is_none() {
+                conflict = belief.conflict(d)?;
+                share = Some(belief.prior_share(d)?);
+            }
+            post = post.update(d)?;
+            sources.push(json!({ "name": name, "rows": rows, "missing": missing }));
+        }
+        out["data"] = Value::Array(sources);
+        out["posterior"] = belief_json(&post)?;
+        out["log_marginal_likelihood"] = json!(ln_ml);
+        out["prior_share"] = json!(share);
+        if let Some(c) = conflict {
+            out["conflict"] = json!({
+                "statistic": c.statistic, "observed": c.observed, "lower_tail": c.lower_tail,
+                "upper_tail": c.upper_tail, "p_value": c.p_value, "mid_p": c.mid_p,
+            });
+        }
+    }
+    if a.json {
+        return Ok(serde_json::to_string_pretty(&out).unwrap_or_default() + "\n");
+    }
+    Ok(check_table(&p, &out))
+}
+
+fn check_table(p: &Project, v: &Value) -> String {
+    use std::fmt::Write as _;
+    let f = |x: &Value| super::table::fmt(x.as_f64());
+    let mut s = String::new();
+    let _ = writeln!(s, "{} ({})", p.scenario.title, p.scenario.family);
+    if !p.scenario.description.is_empty() {
+        let _ = writeln!(s, "  {}", p.scenario.description);
+    }
+    let line = |s: &mut String, label: &str, b: &Value| {
+        let par = &b["parameters"][0];
+        let _ = writeln!(
+            s,
+            "  {label:<28} {} mean {}, sd {}, 95% interval [{}, {}]",
+            par["name"].as_str().unwrap_or(""),
+            f(&par["mean"]),
+            f(&par["sd"]),
+            f(&par["central_interval"]["lower"]),
+            f(&par["central_interval"]["upper"])
+        );
+    };
+    for n in v["notes"].as_array().into_iter().flatten() {
+        let _ = writeln!(s, "  note: {}", n.as_str().unwrap_or(""));
+    }
+    let _ = writeln!(s, "\nexperts");
+    for e in v["experts"].as_array().into_iter().flatten() {
+        line(
+            &mut s,
+            &format!(
+                "{} (weight {})",
+                e["name"].as_str().unwrap_or(""),
+                f(&e["weight"])
+            ),
+            e,
+        );
+    }
+    let _ = writeln!(
+        s,
+        "\npooled ({})",
+        v["pooling"]["method"].as_str().unwrap_or("")
+    );
+    line(&mut s, "prior", &v["pooled"]);
+    if let Some(post) = v.get("posterior") {
+        line(&mut s, "posterior", post);
+        let _ = writeln!(
+            s,
+            "  {:<28} {}",
+            "log marginal likelihood",
+            f(&v["log_marginal_likelihood"])
+        );
+        let _ = writeln!(
+            s,
+            "  {:<28} {}",
+            "prior's share of information",
+            f(&v["prior_share"])
+        );
+        if let Some(c) = v.get("conflict") {
+            let _ = writeln!(
+                s,
+                "  {:<28} {} (p = {})",
+                "prior-data conflict check",
+                c["statistic"].as_str().unwrap_or(""),
+                f(&c["p_value"])
+            );
+            if c["p_value"].as_f64().is_some_and(|p| p < 0.05) {
+                let _ = writeln!(
+                    s,
+                    "  Warning: the data fall in the tail of what the prior predicted; check both before relying on the posterior."
+                );
+            }
+        }
+    }
+    if p.scenario.high_stakes {
+        let _ = writeln!(
+            s,
+            "\nThis project feeds a safety, clinical or financial decision: follow the applicable guidance and have the elicitation reviewed by someone qualified."
+        );
+    }
+    s
+}
+
+/// `export`.
+pub fn export(a: &ExportArgs) -> Result<String> {
+    let Some(target) = Target::parse(&a.to) else {
+        let names: Vec<&str> = TARGETS.iter().map(|(n, _)| *n).collect();
+        return Err(Error::Rule(format!(
+            "--to = '{}' is not an export target; use one of {}",
+            a.to,
+            names.join(", ")
+        )));
+    };
+    let p = load(&a.project)?;
+    let text = export::export(&p.belief()?, target)?;
+    match &a.out {
+        Some(path) => {
+            project::write_atomic(path, &text).map_err(|e| Error::Rule(e.to_string()))?;
+            Ok(String::new())
+        }
+        None => Ok(text),
+    }
+}
