@@ -308,16 +308,8 @@ pub fn read_from(
         last_line = line;
         fields.clear();
         for (k, &i) in index.iter().enumerate() {
-            let raw = rec.get(i).unwrap_or(b"");
-            let text = std::str::from_utf8(raw).map_err(|_| {
-                err(
-                    Some(line),
-                    Some(cols[k]),
-                    "text that is not valid UTF-8".to_owned(),
-                )
-            })?;
-            let t = text.trim();
-            if t.is_empty() || t.eq_ignore_ascii_case("na") {
+            let t = rec.get(i).unwrap_or(b"").trim_ascii();
+            if t.is_empty() || t.eq_ignore_ascii_case(b"na") {
                 if opts.missing == Missing::Error {
                     return Err(err(
                         Some(line),
@@ -328,25 +320,36 @@ pub fn read_from(
                 missing += 1;
                 continue 'rows;
             }
+            let shown = || String::from_utf8_lossy(t).into_owned();
             if let Mapping::Category { labels, .. } = mapping {
-                let Some(pos) = labels.iter().position(|l| l == t) else {
+                let Some(pos) = labels.iter().position(|l| l.as_bytes() == t) else {
                     return Err(err(
                         Some(line),
                         Some(cols[k]),
-                        format!("'{t}' is not one of the categories {}", labels.join(", ")),
+                        format!(
+                            "'{}' is not one of the categories {}",
+                            shown(),
+                            labels.join(", ")
+                        ),
                     ));
                 };
                 fields.push(pos as f64);
                 continue;
             }
-            let v: f64 = t
-                .parse()
-                .map_err(|_| err(Some(line), Some(cols[k]), format!("'{t}' is not a number")))?;
+            // fast-float2 parses the bytes directly, correctly rounded, about
+            // twice as fast as going through &str and the standard parser.
+            let v: f64 = fast_float2::parse(t).map_err(|_| {
+                err(
+                    Some(line),
+                    Some(cols[k]),
+                    format!("'{}' is not a number", shown()),
+                )
+            })?;
             if !v.is_finite() {
                 return Err(err(
                     Some(line),
                     Some(cols[k]),
-                    format!("'{t}' is not a finite number"),
+                    format!("'{}' is not a finite number", shown()),
                 ));
             }
             fields.push(v);
