@@ -326,3 +326,130 @@ fn scipy_export_runs_and_matches_our_densities() {
         assert!(close(*g, ours), "mixture at {x}");
     }
 }
+
+/// Every target × family: the numbers each target's documentation asks for
+/// appear in its line (rates vs scales, sd vs precision).
+#[test]
+fn every_target_and_family_carries_the_right_numbers() {
+    use Target::*;
+    // (family, prior, per-target expected fragments)
+    let cases: [(&str, &str, [(Target, &[&str]); 7]); 7] = [
+        (
+            "beta-binomial",
+            "alpha=2.5,beta=7",
+            [
+                (Stan, &["beta(2.5, 7.0)"]),
+                (PyMC, &["alpha=2.5", "beta=7.0"]),
+                (NumPyro, &["Beta(2.5, 7.0)"]),
+                (Jags, &["dbeta(2.5, 7.0)"]),
+                (R, &["shape1 = 2.5", "shape2 = 7.0"]),
+                (Brms, &["beta(2.5, 7.0)"]),
+                (Scipy, &["stats.beta(2.5, 7.0)"]),
+            ],
+        ),
+        (
+            "gamma-poisson",
+            "alpha=3,beta=4",
+            [
+                (Stan, &["gamma(3.0, 4.0)"]),
+                (PyMC, &["alpha=3.0", "beta=4.0"]),
+                (NumPyro, &["Gamma(3.0, 4.0)"]),
+                (Jags, &["dgamma(3.0, 4.0)"]),
+                (R, &["shape = 3.0", "rate = 4.0"]),
+                (Brms, &["gamma(3.0, 4.0)"]),
+                (Scipy, &["stats.gamma(3.0, scale=0.25)"]),
+            ],
+        ),
+        (
+            "gamma-exponential",
+            "alpha=2,beta=800",
+            [
+                (Stan, &["gamma(2.0, 800.0)"]),
+                (PyMC, &["beta=800.0"]),
+                (NumPyro, &["Gamma(2.0, 800.0)"]),
+                (Jags, &["dgamma(2.0, 800.0)"]),
+                (R, &["rate = 800.0"]),
+                (Brms, &["gamma(2.0, 800.0)"]),
+                (Scipy, &["scale=0.00125"]),
+            ],
+        ),
+        (
+            "normal-known-variance",
+            "mu0=5,kappa0=16,sigma=2",
+            [
+                (Stan, &["normal(5.0, 0.5)"]),
+                (PyMC, &["mu=5.0", "sigma=0.5"]),
+                (NumPyro, &["Normal(5.0, 0.5)"]),
+                (Jags, &["dnorm(5.0, 4.0)"]),
+                (R, &["mean = 5.0", "sd = 0.5"]),
+                (Brms, &["normal(5.0, 0.5)"]),
+                (Scipy, &["loc=5.0", "scale=0.5"]),
+            ],
+        ),
+        (
+            "normal-inverse-gamma",
+            "mu0=5,kappa0=2,alpha0=3,beta0=4",
+            [
+                (
+                    Stan,
+                    &["inv_gamma(3.0, 4.0)", "normal(5.0, sqrt(sigma2 / 2.0))"],
+                ),
+                (PyMC, &["alpha=3.0, beta=4.0", "sigma2 / 2.0"]),
+                (NumPyro, &["InverseGamma(3.0, 4.0)", "sigma2 / 2.0"]),
+                (Jags, &["dgamma(3.0, 4.0)", "dnorm(5.0, 2.0 * tau)"]),
+                (R, &["shape = 3.0, rate = 4.0", "sigma2 / 2.0"]),
+                (
+                    Brms,
+                    &[
+                        "inv_gamma_lpdf(square(sigma) | 3.0, 4.0)",
+                        "sigma / sqrt(2.0)",
+                    ],
+                ),
+                (Scipy, &["stats.invgamma(3.0, scale=4.0)", "sigma2 / 2.0"]),
+            ],
+        ),
+        (
+            "dirichlet-multinomial",
+            "alpha=1;2;3",
+            [
+                (Stan, &["dirichlet([1.0, 2.0, 3.0]')"]),
+                (PyMC, &["a=[1.0, 2.0, 3.0]"]),
+                (NumPyro, &["[1.0, 2.0, 3.0]"]),
+                (Jags, &["ddirch(alpha[1:3])", "c(1.0, 2.0, 3.0)"]),
+                (R, &["c(1.0, 2.0, 3.0)"]),
+                (Brms, &["dirichlet(c(1.0, 2.0, 3.0))"]),
+                (Scipy, &["stats.dirichlet([1.0, 2.0, 3.0])"]),
+            ],
+        ),
+        (
+            "inverse-gamma-variance",
+            "alpha=3,beta=4",
+            [
+                (Stan, &["inv_gamma(3.0, 4.0)"]),
+                (PyMC, &["InverseGamma(\"sigma2\", alpha=3.0, beta=4.0)"]),
+                (NumPyro, &["InverseGamma(3.0, 4.0)"]),
+                (Jags, &["tau ~ dgamma(3.0, 4.0)", "sigma2 <- 1 / tau"]),
+                (
+                    R,
+                    &["dgamma(1 / sigma2, shape = 3.0, rate = 4.0) / sigma2^2"],
+                ),
+                (Brms, &["inv_gamma_lpdf(square(sigma) | 3.0, 4.0)"]),
+                (Scipy, &["stats.invgamma(3.0, scale=4.0)"]),
+            ],
+        ),
+    ];
+    for (family, prior, targets) in cases {
+        for (target, fragments) in targets {
+            let text = one(family, prior, target);
+            for f in fragments {
+                assert!(
+                    text.contains(f),
+                    "{family} → {}: {text:?} lacks {f:?}",
+                    target.name()
+                );
+            }
+        }
+        let v: serde_json::Value = serde_json::from_str(&one(family, prior, Json)).unwrap();
+        assert_eq!(v["family"], family);
+    }
+}
