@@ -327,13 +327,20 @@ fn scipy_export_runs_and_matches_our_densities() {
     }
 }
 
+/// A family, a prior, and for each target the fragments its line must hold.
+type Case = (
+    &'static str,
+    &'static str,
+    [(Target, &'static [&'static str]); 7],
+);
+
 /// Every target × family: the numbers each target's documentation asks for
 /// appear in its line (rates vs scales, sd vs precision).
 #[test]
 fn every_target_and_family_carries_the_right_numbers() {
     use Target::*;
     // (family, prior, per-target expected fragments)
-    let cases: [(&str, &str, [(Target, &[&str]); 7]); 7] = [
+    let cases: [Case; 7] = [
         (
             "beta-binomial",
             "alpha=2.5,beta=7",
