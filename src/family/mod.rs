@@ -169,6 +169,3 @@ pub trait Conjugate: Sized + Clone + PartialEq + std::fmt::Debug {
 fn weighted<S>(terms: &[(f64, &S)], f: impl Fn(&S) -> f64) -> f64 {
     terms.iter().map(|(w, s)| w * f(s)).sum()
 }
-
-#[cfg(test)]
-mod tests;

@@ -1,6 +1,6 @@
 //! The exponential-family structure, checked once for every family.
 
-use super::*;
+use priorwright::family::*;
 
 fn close(a: f64, b: f64, tol: f64) -> bool {
     (a - b).abs() <= tol * b.abs().max(1.0)
