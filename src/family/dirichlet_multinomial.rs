@@ -1,6 +1,6 @@
 //! Dirichlet prior for category shares with multinomial counts.
 
-use super::beta_binomial::short;
+use super::words::short;
 use super::{Conflict, Conjugate, Future, Marginal, Predictive, Value};
 use crate::distribution::{Continuous, Discrete};
 use crate::error::{self, Error, Result};

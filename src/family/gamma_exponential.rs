@@ -1,7 +1,7 @@
 //! Gamma prior for the event rate λ of exponential lifetimes, with
 //! right-censored times.
 
-use super::beta_binomial::short;
+use super::words::short;
 use super::{Conflict, Conjugate, Future, Marginal, Predictive, Value, weighted};
 use crate::distribution::{Continuous, Discrete};
 use crate::error::{self, Error, Result};

@@ -1,6 +1,6 @@
 //! Gamma prior for a Poisson rate λ per unit exposure.
 
-use super::beta_binomial::short;
+use super::words::short;
 use super::{Conflict, Conjugate, Future, Marginal, Predictive, Value, weighted};
 use crate::distribution::{Continuous, Discrete};
 use crate::error::{self, Error, Result};

@@ -1,6 +1,6 @@
 //! Inverse-gamma prior for a normal variance σ² when the mean μ is known.
 
-use super::beta_binomial::short;
+use super::words::short;
 use super::{Conflict, Conjugate, Future, Marginal, Predictive, Value, weighted};
 use crate::distribution::Continuous;
 use crate::error::{self, Error, Result};

@@ -1,6 +1,6 @@
 //! Normal-inverse-gamma prior for a mean μ and variance σ² together.
 
-use super::beta_binomial::short;
+use super::words::short;
 use super::{Conflict, Conjugate, Future, Marginal, Predictive, Value, weighted};
 use crate::distribution::Continuous;
 use crate::error::{self, Error, Result};

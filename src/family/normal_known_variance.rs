@@ -1,6 +1,6 @@
 //! Normal prior for a mean μ when the data's standard deviation σ is known.
 
-use super::beta_binomial::short;
+use super::words::short;
 use super::{Conflict, Conjugate, Future, Marginal, Predictive, Value, weighted};
 use crate::distribution::Continuous;
 use crate::error::{self, Error, Result};
