@@ -39,8 +39,17 @@ pub fn check(a: &CheckArgs) -> Result<String> {
                     ))
                 })?;
             let first = &p.experts[0].prior;
-            let r = read_file(file, &mapping, first, ReadOptions::default())
-                .map_err(|e| Error::Rule(e.to_string()))?;
+            let policy = p.data.first().map(|d| d.missing_policy).unwrap_or_default();
+            let r = read_file(
+                file,
+                &mapping,
+                first,
+                ReadOptions {
+                    missing: policy,
+                    ..ReadOptions::default()
+                },
+            )
+            .map_err(|e| Error::Rule(e.to_string()))?;
             vec![(file.display().to_string(), r.data, r.rows, r.missing)]
         }
         None => p
