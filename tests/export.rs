@@ -178,6 +178,27 @@ fn mixtures_are_written_where_the_target_can_and_refused_where_not() {
             .unwrap()
             .contains("0.6 * dbeta(theta")
     );
+    // Components whose single statement carries a comment (gamma-exponential,
+    // Dirichlet) still give a clean log_sum_exp: no comment inside the call.
+    let gx = Belief::Mix(
+        Mixture::new(vec![
+            (
+                0.5,
+                Prior::parse("gamma-exponential", "alpha=2,beta=1000").unwrap(),
+            ),
+            (
+                0.5,
+                Prior::parse("gamma-exponential", "alpha=3,beta=900").unwrap(),
+            ),
+        ])
+        .unwrap(),
+    );
+    let stan = export(&gx, Target::Stan).unwrap();
+    assert!(!stan.contains("//"), "{stan}");
+    assert!(
+        stan.contains("log(0.5) + gamma_lpdf(lambda | 2.0, 1000.0)"),
+        "{stan}"
+    );
     let e = export(&mix, Target::Jags).unwrap_err().to_string();
     assert!(
         e.contains(

@@ -75,16 +75,90 @@ fn list(xs: &[f64]) -> String {
     xs.iter().map(|x| n(*x)).collect::<Vec<_>>().join(", ")
 }
 
+/// (variable, Stan distribution, arguments) of a prior that is one Stan
+/// statement (all but the normal-inverse-gamma pair). Written once, used for
+/// the single statement and inside a mixture's `log_sum_exp`.
+fn stan_statement(p: &Prior) -> Option<(&'static str, &'static str, String)> {
+    Some(match p {
+        Prior::BetaBinomial(b) => ("theta", "beta", format!("{}, {}", n(b.alpha), n(b.beta))),
+        Prior::GammaPoisson(g) => ("lambda", "gamma", format!("{}, {}", n(g.alpha), n(g.beta))),
+        Prior::GammaExponential(g) => ("lambda", "gamma", format!("{}, {}", n(g.alpha), n(g.beta))),
+        Prior::NormalKnownVariance(k) => (
+            "mu",
+            "normal",
+            format!("{}, {}", n(k.mu0), n(k.sigma / k.kappa0.sqrt())),
+        ),
+        Prior::DirichletMultinomial(d) => ("theta", "dirichlet", format!("[{}]'", list(&d.alpha))),
+        Prior::InverseGammaVariance(v) => (
+            "sigma2",
+            "inv_gamma",
+            format!("{}, {}", n(v.alpha), n(v.beta)),
+        ),
+        Prior::NormalInverseGamma(_) => return None,
+    })
+}
+
+/// (variable, frozen scipy.stats distribution) of a prior that is one
+/// distribution (all but the normal-inverse-gamma pair).
+fn scipy_frozen(p: &Prior) -> Option<(&'static str, String)> {
+    Some(match p {
+        Prior::BetaBinomial(b) => (
+            "theta",
+            format!("stats.beta({}, {})", n(b.alpha), n(b.beta)),
+        ),
+        Prior::GammaPoisson(g) => (
+            "lambda",
+            format!("stats.gamma({}, scale={})", n(g.alpha), n(1.0 / g.beta)),
+        ),
+        Prior::GammaExponential(g) => (
+            "lambda",
+            format!("stats.gamma({}, scale={})", n(g.alpha), n(1.0 / g.beta)),
+        ),
+        Prior::NormalKnownVariance(k) => (
+            "mu",
+            format!(
+                "stats.norm(loc={}, scale={})",
+                n(k.mu0),
+                n(k.sigma / k.kappa0.sqrt())
+            ),
+        ),
+        Prior::DirichletMultinomial(d) => {
+            ("theta", format!("stats.dirichlet([{}])", list(&d.alpha)))
+        }
+        Prior::InverseGammaVariance(v) => (
+            "sigma2",
+            format!("stats.invgamma({}, scale={})", n(v.alpha), n(v.beta)),
+        ),
+        Prior::NormalInverseGamma(_) => return None,
+    })
+}
+
+/// The note a single statement carries, in the target's comment syntax.
+fn note(p: &Prior, comment: &str) -> String {
+    match p {
+        Prior::GammaExponential(_) => format!("  {comment} mean time = 1 / lambda"),
+        Prior::DirichletMultinomial(d) if comment == "//" => {
+            format!("  // theta declared simplex[{}]", d.alpha.len())
+        }
+        _ => String::new(),
+    }
+}
+
 /// A single conjugate prior.
 pub fn single(p: &Prior, t: Target) -> String {
     use Prior as P;
     use Target as T;
     match (p, t) {
         (_, T::Json) => json_doc(p),
+        (_, T::Stan) if let Some((var, dist, args)) = stan_statement(p) => {
+            format!("{var} ~ {dist}({args});{}\n", note(p, "//"))
+        }
+        (_, T::Scipy) if let Some((var, expr)) = scipy_frozen(p) => {
+            format!("{var}_prior = {expr}{}\n", note(p, "#"))
+        }
         (P::BetaBinomial(b), _) => {
             let (a, bb) = (n(b.alpha), n(b.beta));
             match t {
-                T::Stan => format!("theta ~ beta({a}, {bb});\n"),
                 T::PyMC => format!("theta = pm.Beta(\"theta\", alpha={a}, beta={bb})\n"),
                 T::NumPyro => format!("theta = numpyro.sample(\"theta\", dist.Beta({a}, {bb}))\n"),
                 T::Jags => format!("theta ~ dbeta({a}, {bb})\n"),
@@ -92,8 +166,8 @@ pub fn single(p: &Prior, t: Target) -> String {
                 T::Brms => {
                     format!("set_prior(\"beta({a}, {bb})\", class = \"b\", lb = 0, ub = 1)\n")
                 }
-                T::Scipy => format!("theta_prior = stats.beta({a}, {bb})\n"),
-                T::Json => unreachable!(),
+                // Stan, scipy and JSON are written above from the shared pieces.
+                T::Json | T::Stan | T::Scipy => unreachable!(),
             }
         }
         (P::GammaPoisson(g), _) => gamma_lines("lambda", g.alpha, g.beta, t, ""),
@@ -104,14 +178,13 @@ pub fn single(p: &Prior, t: Target) -> String {
             let sd = k.sigma / k.kappa0.sqrt();
             let (m, s, prec) = (n(k.mu0), n(sd), n(1.0 / (sd * sd)));
             match t {
-                T::Stan => format!("mu ~ normal({m}, {s});\n"),
                 T::PyMC => format!("mu = pm.Normal(\"mu\", mu={m}, sigma={s})\n"),
                 T::NumPyro => format!("mu = numpyro.sample(\"mu\", dist.Normal({m}, {s}))\n"),
                 T::Jags => format!("mu ~ dnorm({m}, {prec})  # precision = 1 / sd^2\n"),
                 T::R => format!("dnorm(mu, mean = {m}, sd = {s})\n"),
                 T::Brms => format!("set_prior(\"normal({m}, {s})\", class = \"Intercept\")\n"),
-                T::Scipy => format!("mu_prior = stats.norm(loc={m}, scale={s})\n"),
-                T::Json => unreachable!(),
+                // Stan, scipy and JSON are written above from the shared pieces.
+                T::Json | T::Stan | T::Scipy => unreachable!(),
             }
         }
         (P::NormalInverseGamma(g), _) => {
@@ -144,7 +217,6 @@ pub fn single(p: &Prior, t: Target) -> String {
         (P::DirichletMultinomial(d), _) => {
             let (k, a) = (d.alpha.len(), list(&d.alpha));
             match t {
-                T::Stan => format!("theta ~ dirichlet([{a}]');  // theta declared simplex[{k}]\n"),
                 T::PyMC => format!("theta = pm.Dirichlet(\"theta\", a=[{a}])\n"),
                 T::NumPyro => {
                     format!("theta = numpyro.sample(\"theta\", dist.Dirichlet(jnp.array([{a}])))\n")
@@ -156,14 +228,13 @@ pub fn single(p: &Prior, t: Target) -> String {
                 T::Brms => format!(
                     "set_prior(\"dirichlet(c({a}))\", class = \"simo\")  # brms takes Dirichlet priors only on simplex classes\n"
                 ),
-                T::Scipy => format!("theta_prior = stats.dirichlet([{a}])\n"),
-                T::Json => unreachable!(),
+                // Stan, scipy and JSON are written above from the shared pieces.
+                T::Json | T::Stan | T::Scipy => unreachable!(),
             }
         }
         (P::InverseGammaVariance(v), _) => {
             let (a, b) = (n(v.alpha), n(v.beta));
             match t {
-                T::Stan => format!("sigma2 ~ inv_gamma({a}, {b});\n"),
                 T::PyMC => format!("sigma2 = pm.InverseGamma(\"sigma2\", alpha={a}, beta={b})\n"),
                 T::NumPyro => format!(
                     "sigma2 = numpyro.sample(\"sigma2\", dist.InverseGamma({a}, {b}))  # 2nd argument acts as the scale\n"
@@ -175,15 +246,15 @@ pub fn single(p: &Prior, t: Target) -> String {
                 T::Brms => format!(
                     "c(set_prior(\"\", class = \"sigma\"),\n  set_prior(\"target += inv_gamma_lpdf(square(sigma) | {a}, {b}) + log(2 * sigma)\", check = FALSE))\n"
                 ),
-                T::Scipy => format!("sigma2_prior = stats.invgamma({a}, scale={b})\n"),
-                T::Json => unreachable!(),
+                // Stan, scipy and JSON are written above from the shared pieces.
+                T::Json | T::Stan | T::Scipy => unreachable!(),
             }
         }
     }
 }
 
 fn gamma_lines(name: &str, a: f64, b: f64, t: Target, note: &str) -> String {
-    let (a, bb, scale) = (n(a), n(b), n(1.0 / b));
+    let (a, bb) = (n(a), n(b));
     let c = |mark: &str| {
         if note.is_empty() {
             String::new()
@@ -192,7 +263,6 @@ fn gamma_lines(name: &str, a: f64, b: f64, t: Target, note: &str) -> String {
         }
     };
     match t {
-        Target::Stan => format!("{name} ~ gamma({a}, {bb});{}\n", c("//")),
         Target::PyMC => format!(
             "{name} = pm.Gamma(\"{name}\", alpha={a}, beta={bb}){}\n",
             c("#")
@@ -204,8 +274,8 @@ fn gamma_lines(name: &str, a: f64, b: f64, t: Target, note: &str) -> String {
         Target::Jags => format!("{name} ~ dgamma({a}, {bb}){}\n", c("#")),
         Target::R => format!("dgamma({name}, shape = {a}, rate = {bb})\n"),
         Target::Brms => format!("set_prior(\"gamma({a}, {bb})\", class = \"b\", lb = 0)\n"),
-        Target::Scipy => format!("{name}_prior = stats.gamma({a}, scale={scale}){}\n", c("#")),
-        Target::Json => unreachable!(),
+        // Stan, scipy and JSON are written by `single` from the shared pieces.
+        Target::Json | Target::Stan | Target::Scipy => unreachable!(),
     }
 }
 
@@ -261,16 +331,7 @@ pub fn mixture(m: &Mixture, t: Target) -> Option<String> {
             s.push_str(&format!("weights = [{}]\n", list(&weights)));
             s.push_str("components = [\n");
             for (_, p) in parts {
-                let line = single(p, Target::Scipy);
-                let expr = line
-                    .split_once(" = ")
-                    .map_or(line.as_str(), |(_, e)| e)
-                    .trim()
-                    .to_owned();
-                if matches!(p, Prior::NormalInverseGamma(_)) {
-                    return None;
-                }
-                let expr = expr.split("  #").next().unwrap_or(&expr).trim().to_owned();
+                let (_, expr) = scipy_frozen(p)?;
                 s.push_str(&format!("    {expr},\n"));
             }
             s.push_str("]\ndef prior_pdf(x):\n    return sum(w * c.pdf(x) for w, c in zip(weights, components))\n");
@@ -288,23 +349,10 @@ pub fn mixture(m: &Mixture, t: Target) -> Option<String> {
             let lp: Vec<String> = parts
                 .iter()
                 .map(|(w, p)| {
-                    let stmt = single(p, Target::Stan);
-                    let (lhs, rhs) = stmt.split_once(" ~ ")?;
-                    let (dist, args) = rhs.trim().trim_end_matches(';').split_once('(')?;
-                    let args = args.trim_end_matches(')');
-                    Some(format!(
-                        "log({}) + {dist}_lpdf({} | {args})",
-                        n(*w),
-                        lhs.trim()
-                    ))
+                    let (var, dist, args) = stan_statement(p)?;
+                    Some(format!("log({}) + {dist}_lpdf({var} | {args})", n(*w)))
                 })
                 .collect::<Option<_>>()?;
-            if parts
-                .iter()
-                .any(|(_, p)| matches!(p, Prior::NormalInverseGamma(_)))
-            {
-                return None;
-            }
             Some(format!(
                 "target += log_sum_exp({{{}}});\n",
                 lp.join(",\n    ")

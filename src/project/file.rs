@@ -63,9 +63,11 @@ pub fn from_text(text: &str, path: &str) -> Result<Project, ProjectError> {
         return Err(fail(path, "the file is empty"));
     }
     let header: Header = ron::from_str(text).map_err(|e| {
+        // Say "a project" where RON names our private header type.
+        let why = e.to_string().replace("struct `Header`", "a project");
         fail(
             path,
-            format!("cannot be read as a Priorwright project (at line:column {e})"),
+            format!("cannot be read as a Priorwright project (at line:column {why})"),
         )
     })?;
     if header.format_version > FORMAT_VERSION {
