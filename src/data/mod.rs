@@ -3,15 +3,13 @@
 //! CSV and TSV files with a header row are read through the `csv` crate one
 //! reused record at a time, so memory stays constant whatever the file's size.
 //! The user maps columns to what the family needs; the result is the family's
-//! [`Data`] (its sufficient statistics), with the rows read and the rows
+//! [`crate::family::Data`] (its sufficient statistics), with the rows read and the rows
 //! skipped for missing values. Every error names the file, the line and the
 //! column and shows the offending text.
 
 mod read;
 
 pub use read::{DataError, Missing, ReadOptions, Reduced, read_file, read_from};
-
-use crate::family::Data;
 
 /// Which columns carry what the family needs.
 #[derive(Clone, Debug, PartialEq, serde::Serialize, serde::Deserialize)]
@@ -82,7 +80,3 @@ impl Mapping {
         }
     }
 }
-
-/// Typed-in statistics (data already reduced elsewhere) use the same keys as
-/// the command line's `--data`; see [`crate::family::Prior::parse_data`].
-pub type Statistics = Data;

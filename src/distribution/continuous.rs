@@ -532,18 +532,8 @@ impl Continuous {
 
     /// Equal-tailed interval holding `level` of the mass.
     pub fn central_interval(&self, level: f64) -> Interval {
-        self.central_interval_near(level, None)
-    }
-
-    /// [`Self::central_interval`] with hints for its two ends.
-    pub fn central_interval_near(&self, level: f64, hints: Option<(f64, f64)>) -> Interval {
         let tail = 0.5 * (1.0 - level);
-        let (hl, hu) = hints.map_or((None, None), |(l, u)| (Some(l), Some(u)));
-        Interval::single(
-            level,
-            self.quantile_near(tail, hl),
-            self.quantile_near(1.0 - tail, hu),
-        )
+        Interval::single(level, self.quantile(tail), self.quantile(1.0 - tail))
     }
 
     /// Shortest set holding `level` of the mass (one or two pieces).
