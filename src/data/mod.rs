@@ -1,13 +1,16 @@
 //! Data files to sufficient statistics.
 //!
-//! CSV and TSV files with a header row are read through the `csv` crate one
-//! reused record at a time, so memory stays constant whatever the file's size.
+//! CSV and TSV files with a header row are read in reused blocks, so memory
+//! stays constant whatever the file's size: plain rows by a one-pass scanner,
+//! anything quoted by the `csv` crate.
 //! The user maps columns to what the family needs; the result is the family's
 //! [`crate::family::Data`] (its sufficient statistics), with the rows read and the rows
 //! skipped for missing values. Every error names the file, the line and the
 //! column and shows the offending text.
 
+mod plain;
 mod read;
+mod reduce;
 
 pub use read::{DataError, Missing, ReadOptions, Reduced, read_file, read_from};
 

@@ -1,9 +1,9 @@
 //! The streaming reader behind [`super::Mapping`].
 
 use super::Mapping;
-use crate::family::{
-    Counts, Data, EventCounts, LifeTest, MeanStats, NormalSample, Prior, SquaresAboutMean, Trials,
-};
+use super::plain::{self, Blocks, Next};
+use super::reduce::Reducer;
+use crate::family::{Data, Prior};
 use std::io::Read;
 use std::path::Path;
 
@@ -61,20 +61,54 @@ pub struct DataError {
     pub message: String,
 }
 
-/// Refuses a line longer than the limit before the CSV parser buffers it.
+/// Feeds the csv crate: refuses a line longer than the limit before the
+/// parser buffers it, and turns `\r\n` and a bare `\r` into `\n`. The csv
+/// crate counts only `\n` and, after a `\r\n`, reports a record one line early;
+/// with one kind of line end its line numbers are the file's.
 struct LineGuard<R> {
     inner: R,
     since_newline: usize,
+    after_return: bool,
     limit: usize,
+    /// Bytes handed on, the last of them, and whether the input has ended:
+    /// enough to tell a last record cut by the end of the file from one ended
+    /// by a `\n`.
+    emitted: u64,
+    last: u8,
+    ended: bool,
+    /// `\n`s handed on, to name the line that is too long.
+    newlines: u64,
+    /// A line found too long, reported once the bytes before it are parsed,
+    /// so that errors come in the file's order.
+    too_long: Option<u64>,
 }
 
-/// The guard's error: a line longer than this many bytes.
+impl<R> LineGuard<R> {
+    fn new(inner: R, limit: usize) -> Self {
+        Self {
+            inner,
+            since_newline: 0,
+            after_return: false,
+            limit,
+            emitted: 0,
+            last: b'\n',
+            ended: false,
+            newlines: 0,
+            too_long: None,
+        }
+    }
+}
+
+/// The guard's error: line `line` (of what the guard read) is longer than `limit` bytes.
 #[derive(Debug)]
-struct LongLine(usize);
+struct LongLine {
+    limit: usize,
+    line: u64,
+}
 
 impl std::fmt::Display for LongLine {
     fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
-        write!(f, "longer than {} bytes", self.0)
+        write!(f, "longer than {} bytes", self.limit)
     }
 }
 
@@ -82,54 +116,49 @@ impl std::error::Error for LongLine {}
 
 impl<R: Read> Read for LineGuard<R> {
     fn read(&mut self, buf: &mut [u8]) -> std::io::Result<usize> {
-        let n = self.inner.read(buf)?;
-        let chunk = &buf[..n];
-        // Only a run crossing chunk boundaries can exceed the limit (reads are
-        // far smaller than it), so the first and last newline suffice.
-        let run = match chunk.iter().position(|b| *b == b'\n') {
-            Some(first) => {
-                let head = self.since_newline + first;
-                self.since_newline =
-                    n - 1 - chunk.iter().rposition(|b| *b == b'\n').unwrap_or(first);
-                head.max(self.since_newline)
+        loop {
+            if let Some(line) = self.too_long {
+                return Err(std::io::Error::other(LongLine {
+                    limit: self.limit,
+                    line,
+                }));
             }
-            None => {
-                self.since_newline += n;
-                self.since_newline
+            let n = self.inner.read(buf)?;
+            if n == 0 {
+                self.ended = true;
+                return Ok(0);
             }
-        };
-        if run > self.limit {
-            return Err(std::io::Error::other(LongLine(self.limit)));
+            let mut w = 0;
+            for r in 0..n {
+                let b = buf[r];
+                if self.after_return && b == b'\n' {
+                    self.after_return = false;
+                    continue;
+                }
+                self.after_return = b == b'\r';
+                if b == b'\r' || b == b'\n' {
+                    self.since_newline = 0;
+                    self.newlines += 1;
+                    buf[w] = b'\n';
+                } else {
+                    self.since_newline += 1;
+                    if self.since_newline > self.limit {
+                        self.too_long = Some(self.newlines + 1);
+                        break;
+                    }
+                    buf[w] = b;
+                }
+                w += 1;
+            }
+            // A read that was only the `\n` of a `\r\n` must not look like
+            // the end: read again.
+            if w > 0 {
+                self.emitted += w as u64;
+                self.last = buf[w - 1];
+                return Ok(w);
+            }
         }
-        Ok(n)
     }
-}
-
-/// Running sums for each kind of mapping.
-enum Acc {
-    Trials {
-        s: f64,
-        n: f64,
-    },
-    Events {
-        y: f64,
-        t: f64,
-    },
-    Life {
-        d: f64,
-        t: f64,
-    },
-    /// Welford's running mean and sum of squared deviations, and Σ(y − μ)² for a known μ.
-    Values {
-        n: f64,
-        mean: f64,
-        m2: f64,
-        ss_known: f64,
-        mu: f64,
-    },
-    Cats {
-        counts: Vec<f64>,
-    },
 }
 
 /// Reads `path` (TSV if it ends in .tsv or .tab, else CSV) for `prior`'s family.
@@ -160,6 +189,10 @@ pub fn read_file(
 }
 
 /// [`read_file`] from any reader; `name` is used in messages.
+///
+/// Plain blocks of lines go through [`plain::scan`]; from the first block with
+/// a quote or a bare `\r` on, the csv crate reads the rest. Both feed one
+/// [`Reducer`], so the statistics and messages do not depend on the path.
 pub fn read_from(
     input: impl Read,
     name: &str,
@@ -168,352 +201,246 @@ pub fn read_from(
     prior: &Prior,
     opts: ReadOptions,
 ) -> Result<Reduced, DataError> {
-    let err = |line: Option<u64>, column: Option<&str>, message: String| DataError {
-        file: name.to_owned(),
-        line,
-        column: column.map(str::to_owned),
-        message,
-    };
-    let guard = LineGuard {
-        inner: input,
-        since_newline: 0,
-        limit: opts.max_line_bytes,
-    };
-    let mut rdr = csv::ReaderBuilder::new()
-        .delimiter(delimiter)
-        .has_headers(true)
-        .flexible(false)
-        .buffer_capacity(1 << 16)
-        .from_reader(guard);
-    let headers = rdr.byte_headers().map_err(|e| csv_error(name, &e))?.clone();
-    if headers.is_empty() || (headers.len() == 1 && headers[0].is_empty()) {
-        return Err(err(
-            Some(1),
+    let mut blocks = Blocks::new(input, opts.max_line_bytes);
+    let mut line = 0u64;
+    let Some(header) = plain_header(&mut blocks, name, delimiter, opts, &mut line)? else {
+        return read_csv(
+            blocks.into_rest(),
+            name,
+            delimiter,
+            mapping,
+            prior,
+            opts,
+            line,
             None,
-            "the file is empty: a header row is needed".to_owned(),
-        ));
+        );
+    };
+    let mut reducer = Reducer::new(name, &header, mapping, prior, opts.missing)?;
+    let mut cells = Vec::with_capacity(header.len() + 1);
+    loop {
+        let (start, end) = match blocks
+            .next_block()
+            .map_err(|e| io_error(name, line + 1, e))?
+        {
+            Next::Lines(start, end) if plain::is_plain(&blocks.bytes()[start..end]) => (start, end),
+            Next::End => break,
+            Next::LongLine if plain::is_plain(blocks.pending()) => {
+                return Err(long_line(name, line + 1, opts));
+            }
+            // A quote or a bare \r from here on: the csv crate reads the rest.
+            Next::Lines(..) | Next::LongLine => {
+                return read_csv(
+                    blocks.into_rest(),
+                    name,
+                    delimiter,
+                    mapping,
+                    prior,
+                    opts,
+                    line,
+                    Some(reducer),
+                );
+            }
+        };
+        let block = &blocks.bytes()[start..end];
+        let shape = plain::Shape {
+            delimiter,
+            width: header.len(),
+            limit: opts.max_line_bytes,
+        };
+        plain::scan(
+            block,
+            shape,
+            &mut line,
+            &mut cells,
+            |l| long_line(name, l, opts),
+            |l, count, cells| {
+                reducer.row(l, count, |i| {
+                    let c = cells[i];
+                    (&block[c.start..c.end], c.value)
+                })
+            },
+        )?;
+        blocks.consume(end);
     }
-    let header_names: Vec<String> = headers
-        .iter()
+    finish(reducer, prior)
+}
+
+fn finish(reducer: Reducer<'_>, prior: &Prior) -> Result<Reduced, DataError> {
+    let (rows, missing) = (reducer.rows, reducer.missing);
+    Ok(Reduced {
+        data: reducer.finish(prior)?,
+        rows,
+        missing,
+    })
+}
+
+/// The header: the first non-empty line, split by the csv crate (headers are
+/// often quoted even when the data are not). None when the csv crate must read
+/// the whole file: a quoted newline in the header, or bare `\r` line ends.
+fn plain_header<R: Read>(
+    blocks: &mut Blocks<R>,
+    name: &str,
+    delimiter: u8,
+    opts: ReadOptions,
+    line: &mut u64,
+) -> Result<Option<Vec<String>>, DataError> {
+    loop {
+        let (start, end) = match blocks
+            .next_block()
+            .map_err(|e| io_error(name, *line + 1, e))?
+        {
+            Next::Lines(start, end) => (start, end),
+            Next::End => return Err(empty_file(name)),
+            // Only a plain line is surely too long: the csv crate splits the rest.
+            Next::LongLine if !plain::is_plain(blocks.pending()) => return Ok(None),
+            Next::LongLine => return Err(long_line(name, *line + 1, opts)),
+        };
+        let bytes = &blocks.bytes()[start..end];
+        let first = memchr::memchr(b'\n', bytes).map_or(bytes.len(), |p| p + 1);
+        let text = &bytes[..first];
+        if plain::has_bare_return(text) {
+            return Ok(None);
+        }
+        let body = text.strip_suffix(b"\n").unwrap_or(text);
+        if body.strip_suffix(b"\r").unwrap_or(body).len() > opts.max_line_bytes {
+            return Err(long_line(name, *line + 1, opts));
+        }
+        if text == b"\n" || text == b"\r\n" {
+            *line += 1;
+            blocks.consume(start + first);
+            continue;
+        }
+        let mut rdr = csv::ReaderBuilder::new()
+            .delimiter(delimiter)
+            .has_headers(false)
+            .from_reader(text);
+        let mut rec = csv::ByteRecord::new();
+        let whole_line = matches!(rdr.read_byte_record(&mut rec), Ok(true))
+            && !rec.iter().any(|f| f.contains(&b'\n') || f.contains(&b'\r'));
+        if !whole_line {
+            return Ok(None);
+        }
+        *line += 1;
+        blocks.consume(start + first);
+        let names = header_names(&rec);
+        if names.len() == 1 && names[0].is_empty() {
+            return Err(empty_file(name));
+        }
+        return Ok(Some(names));
+    }
+}
+
+fn io_error(name: &str, line: u64, e: std::io::Error) -> DataError {
+    DataError {
+        file: name.to_owned(),
+        line: Some(line),
+        column: None,
+        message: e.to_string(),
+    }
+}
+
+fn long_line(name: &str, line: u64, opts: ReadOptions) -> DataError {
+    DataError {
+        file: name.to_owned(),
+        line: Some(line),
+        column: None,
+        message: format!("this line is longer than {} bytes", opts.max_line_bytes),
+    }
+}
+
+fn empty_file(name: &str) -> DataError {
+    DataError {
+        file: name.to_owned(),
+        line: Some(1),
+        column: None,
+        message: "the file is empty: a header row is needed".to_owned(),
+    }
+}
+
+/// Header names, trimmed; a UTF-8 byte-order mark before the first is dropped.
+fn header_names(rec: &csv::ByteRecord) -> Vec<String> {
+    rec.iter()
         .enumerate()
         .map(|(i, h)| {
             let s = String::from_utf8_lossy(h).trim().to_owned();
-            // A UTF-8 byte-order mark before the first name is accepted and dropped.
             if i == 0 {
                 s.trim_start_matches('\u{feff}').to_owned()
             } else {
                 s
             }
         })
-        .collect();
-    let mut index = Vec::new();
-    for col in mapping.columns() {
-        let Some(i) = header_names.iter().position(|h| h == col) else {
-            return Err(err(
-                Some(1),
-                Some(col),
-                format!("no such column; the header has {}", header_names.join(", ")),
-            ));
-        };
-        index.push(i);
-    }
-    let mut acc = match (mapping, prior) {
-        (Mapping::Binary { .. } | Mapping::SuccessesTrials { .. }, Prior::BetaBinomial(_)) => {
-            Acc::Trials { s: 0.0, n: 0.0 }
-        }
-        (Mapping::Counts { .. }, Prior::GammaPoisson(_)) => Acc::Events { y: 0.0, t: 0.0 },
-        (Mapping::Times { .. }, Prior::GammaExponential(_)) => Acc::Life { d: 0.0, t: 0.0 },
-        (Mapping::Values { .. }, Prior::NormalKnownVariance(_) | Prior::NormalInverseGamma(_)) => {
-            Acc::Values {
-                n: 0.0,
-                mean: 0.0,
-                m2: 0.0,
-                ss_known: 0.0,
-                mu: 0.0,
-            }
-        }
-        (Mapping::Values { .. }, Prior::InverseGammaVariance(p)) => {
-            let Some(mu) = p.mu else {
-                return Err(err(
-                    None,
-                    None,
-                    "inverse-gamma-variance data need the known mean mu in the prior".to_owned(),
-                ));
-            };
-            Acc::Values {
-                n: 0.0,
-                mean: 0.0,
-                m2: 0.0,
-                ss_known: 0.0,
-                mu,
-            }
-        }
-        (Mapping::Category { labels, .. }, Prior::DirichletMultinomial(p))
-            if labels.len() == p.alpha.len() =>
-        {
-            Acc::Cats {
-                counts: vec![0.0; labels.len()],
-            }
-        }
-        (Mapping::CountColumns { columns }, Prior::DirichletMultinomial(p))
-            if columns.len() == p.alpha.len() =>
-        {
-            Acc::Cats {
-                counts: vec![0.0; columns.len()],
-            }
-        }
-        (
-            Mapping::Category { .. } | Mapping::CountColumns { .. },
-            Prior::DirichletMultinomial(p),
-        ) => {
-            return Err(err(
-                None,
-                None,
-                format!(
-                    "the mapping must name {} categories, one per category of the prior",
-                    p.alpha.len()
-                ),
-            ));
-        }
-        (m, p) => {
-            return Err(err(
-                None,
-                None,
-                format!("a {} mapping does not fit the {} family", kind(m), p.id()),
-            ));
-        }
-    };
-    let cols: Vec<&str> = mapping.columns();
+        .collect()
+}
+
+/// The csv crate's path, from `input` on: the whole file (header included)
+/// when `started` is None, else the rest after `skipped` lines already read
+/// into `started`.
+#[allow(clippy::too_many_arguments)]
+fn read_csv<'a>(
+    input: impl Read,
+    name: &'a str,
+    delimiter: u8,
+    mapping: &'a Mapping,
+    prior: &Prior,
+    opts: ReadOptions,
+    skipped: u64,
+    started: Option<Reducer<'a>>,
+) -> Result<Reduced, DataError> {
+    let mut rdr = csv::ReaderBuilder::new()
+        .delimiter(delimiter)
+        .has_headers(false)
+        .flexible(true)
+        .buffer_capacity(1 << 16)
+        .from_reader(LineGuard::new(input, opts.max_line_bytes));
     let mut rec = csv::ByteRecord::new();
-    let (mut rows, mut missing) = (0u64, 0u64);
-    let mut fields: Vec<f64> = Vec::with_capacity(index.len());
-    let mut last_line = 1;
-    'rows: loop {
-        match rdr.read_byte_record(&mut rec) {
-            Ok(true) => {}
-            Ok(false) => break,
+    // The csv crate's record positions count skipped blank lines into the next
+    // record; where a record ends is exact, so its first line is found from
+    // there, less the newlines inside its quoted fields.
+    let next = |rdr: &mut csv::Reader<LineGuard<_>>,
+                rec: &mut csv::ByteRecord|
+     -> Result<Option<u64>, DataError> {
+        match rdr.read_byte_record(rec) {
+            Ok(false) => Ok(None),
+            Ok(true) => {
+                let end = rdr.position();
+                let inside: u64 = rec
+                    .iter()
+                    .map(|f| memchr::memchr_iter(b'\n', f).count() as u64)
+                    .sum();
+                let g = rdr.get_ref();
+                let cut = g.ended && end.byte() == g.emitted && g.last != b'\n';
+                Ok(Some(end.line() - inside - u64::from(!cut) + skipped))
+            }
             Err(e) => {
                 let mut d = csv_error(name, &e);
+                d.line = d.line.map(|l| l + skipped);
                 if let csv::ErrorKind::Io(io) = e.kind()
-                    && io.get_ref().is_some_and(|inner| inner.is::<LongLine>())
+                    && let Some(long) = io.get_ref().and_then(|i| i.downcast_ref::<LongLine>())
                 {
-                    // The long line is the one after the last complete record.
-                    d.line = Some(last_line + 1);
-                    d.message = format!("this line is {io}");
+                    d.line = Some(long.line + skipped);
+                    d.message = format!("this line is {long}");
                 }
-                return Err(d);
+                Err(d)
             }
-        }
-        let line = rec.position().map_or(0, csv::Position::line);
-        last_line = line;
-        fields.clear();
-        for (k, &i) in index.iter().enumerate() {
-            let t = rec.get(i).unwrap_or(b"").trim_ascii();
-            if t.is_empty() || t.eq_ignore_ascii_case(b"na") {
-                if opts.missing == Missing::Error {
-                    return Err(err(
-                        Some(line),
-                        Some(cols[k]),
-                        "empty cell (missing values were asked to be errors)".to_owned(),
-                    ));
-                }
-                missing += 1;
-                continue 'rows;
-            }
-            let shown = || String::from_utf8_lossy(t).into_owned();
-            if let Mapping::Category { labels, .. } = mapping {
-                let Some(pos) = labels.iter().position(|l| l.as_bytes() == t) else {
-                    return Err(err(
-                        Some(line),
-                        Some(cols[k]),
-                        format!(
-                            "'{}' is not one of the categories {}",
-                            shown(),
-                            labels.join(", ")
-                        ),
-                    ));
-                };
-                fields.push(pos as f64);
-                continue;
-            }
-            // fast-float2 parses the bytes directly, correctly rounded, about
-            // twice as fast as going through &str and the standard parser.
-            let v: f64 = match whole_number(t) {
-                Some(v) => v,
-                None => fast_float2::parse(t).map_err(|_| {
-                    err(
-                        Some(line),
-                        Some(cols[k]),
-                        format!("'{}' is not a number", shown()),
-                    )
-                })?,
-            };
-            if !v.is_finite() {
-                return Err(err(
-                    Some(line),
-                    Some(cols[k]),
-                    format!("'{}' is not a finite number", shown()),
-                ));
-            }
-            fields.push(v);
-        }
-        rows += 1;
-        let whole = |v: f64, k: usize| -> Result<f64, DataError> {
-            if v >= 0.0 && v.fract() == 0.0 {
-                Ok(v)
-            } else {
-                Err(err(
-                    Some(line),
-                    Some(cols[k]),
-                    format!("'{v}' is not a whole count (0 or more)"),
-                ))
-            }
-        };
-        match (&mut acc, mapping) {
-            (Acc::Trials { s, n }, Mapping::Binary { .. }) => {
-                if fields[0] != 0.0 && fields[0] != 1.0 {
-                    return Err(err(
-                        Some(line),
-                        Some(cols[0]),
-                        format!("'{}' is not 0 or 1", fields[0]),
-                    ));
-                }
-                *s += fields[0];
-                *n += 1.0;
-            }
-            (Acc::Trials { s, n }, _) => {
-                let (k, m) = (whole(fields[0], 0)?, whole(fields[1], 1)?);
-                if k > m {
-                    return Err(err(
-                        Some(line),
-                        Some(cols[0]),
-                        format!("{k} successes is more than the {m} trials"),
-                    ));
-                }
-                *s += k;
-                *n += m;
-            }
-            (Acc::Events { y, t }, _) => {
-                *y += whole(fields[0], 0)?;
-                let e = fields.get(1).copied().unwrap_or(1.0);
-                if e <= 0.0 {
-                    return Err(err(
-                        Some(line),
-                        cols.get(1).copied(),
-                        format!("exposure '{e}' must be positive"),
-                    ));
-                }
-                *t += e;
-            }
-            (Acc::Life { d, t }, _) => {
-                if fields[0] < 0.0 {
-                    return Err(err(
-                        Some(line),
-                        Some(cols[0]),
-                        format!("time '{}' must be 0 or more", fields[0]),
-                    ));
-                }
-                let flag = fields.get(1).copied().unwrap_or(1.0);
-                if flag != 0.0 && flag != 1.0 {
-                    return Err(err(
-                        Some(line),
-                        cols.get(1).copied(),
-                        format!("event flag '{flag}' must be 1 (failure) or 0 (censored)"),
-                    ));
-                }
-                *d += flag;
-                *t += fields[0];
-            }
-            (
-                Acc::Values {
-                    n,
-                    mean,
-                    m2,
-                    ss_known,
-                    mu,
-                },
-                _,
-            ) => {
-                let y = fields[0];
-                *n += 1.0;
-                let delta = y - *mean;
-                *mean += delta / *n;
-                *m2 += delta * (y - *mean);
-                *ss_known += (y - *mu) * (y - *mu);
-            }
-            (Acc::Cats { counts }, Mapping::Category { .. }) => counts[fields[0] as usize] += 1.0,
-            (Acc::Cats { counts }, _) => {
-                for (k, c) in counts.iter_mut().enumerate() {
-                    *c += whole(fields[k], k)?;
-                }
-            }
-        }
-    }
-    if rows == 0 {
-        return Err(err(
-            None,
-            None,
-            if missing > 0 {
-                "every row has a missing value".to_owned()
-            } else {
-                "a header row but no data".to_owned()
-            },
-        ));
-    }
-    let bad = |e: crate::error::Error| err(None, None, e.to_string());
-    let data = match (acc, prior) {
-        (Acc::Trials { s, n }, _) => Data::BetaBinomial(Trials::observed(s, n).map_err(bad)?),
-        (Acc::Events { y, t }, _) => Data::GammaPoisson(EventCounts::observed(y, t).map_err(bad)?),
-        (Acc::Life { d, t }, _) => Data::GammaExponential(LifeTest::observed(d, t).map_err(bad)?),
-        (Acc::Values { n, mean, m2, .. }, Prior::NormalKnownVariance(_)) => {
-            let var = (n > 1.0).then(|| m2 / (n - 1.0));
-            Data::NormalKnownVariance(MeanStats::observed(n, mean, var).map_err(bad)?)
-        }
-        (Acc::Values { n, mean, m2, .. }, Prior::NormalInverseGamma(_)) => {
-            let var = if n > 1.0 { m2 / (n - 1.0) } else { 0.0 };
-            Data::NormalInverseGamma(NormalSample::observed(n, mean, Some(var)).map_err(bad)?)
-        }
-        (Acc::Values { n, ss_known, .. }, _) => {
-            Data::InverseGammaVariance(SquaresAboutMean::observed(n, ss_known).map_err(bad)?)
-        }
-        (Acc::Cats { counts }, _) => {
-            Data::DirichletMultinomial(Counts::observed(counts).map_err(bad)?)
         }
     };
-    Ok(Reduced {
-        data,
-        rows,
-        missing,
-    })
-}
-
-/// Plain digits (up to 15, so exact in a double) read without a float parser:
-/// counts are the common case.
-fn whole_number(t: &[u8]) -> Option<f64> {
-    if t.is_empty() || t.len() > 15 {
-        return None;
-    }
-    let mut v: u64 = 0;
-    for &b in t {
-        let d = b.wrapping_sub(b'0');
-        if d > 9 {
-            return None;
+    let mut reducer = match started {
+        Some(reducer) => reducer,
+        None => {
+            if next(&mut rdr, &mut rec)?.is_none() {
+                return Err(empty_file(name));
+            }
+            let header = header_names(&rec);
+            if header.len() == 1 && header[0].is_empty() {
+                return Err(empty_file(name));
+            }
+            Reducer::new(name, &header, mapping, prior, opts.missing)?
         }
-        v = v * 10 + u64::from(d);
+    };
+    while let Some(line) = next(&mut rdr, &mut rec)? {
+        reducer.row(line, rec.len(), |i| (rec.get(i).unwrap_or(b""), f64::NAN))?;
     }
-    Some(v as f64)
-}
-
-fn kind(m: &Mapping) -> &'static str {
-    match m {
-        Mapping::Binary { .. } => "0/1 column",
-        Mapping::SuccessesTrials { .. } => "successes-and-trials",
-        Mapping::Counts { .. } => "counts",
-        Mapping::Times { .. } => "times",
-        Mapping::Values { .. } => "values",
-        Mapping::Category { .. } => "category",
-        Mapping::CountColumns { .. } => "count-columns",
-    }
+    finish(reducer, prior)
 }
 
 /// The csv crate's errors, as file, line and what happened.
@@ -534,5 +461,89 @@ fn csv_error(name: &str, e: &csv::Error) -> DataError {
         line,
         column: None,
         message,
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    //! The plain-row path must agree with the csv crate's on every input: same
+    //! statistics, same counts, same message (the csv crate is the reference).
+    use super::*;
+    use proptest::prelude::*;
+
+    fn both(text: &[u8], mapping: &Mapping, prior: &Prior) -> [Result<Reduced, DataError>; 2] {
+        let opts = ReadOptions {
+            max_line_bytes: 64,
+            ..ReadOptions::default()
+        };
+        [
+            read_from(text, "t.csv", b',', mapping, prior, opts),
+            read_csv(text, "t.csv", b',', mapping, prior, opts, 0, None),
+        ]
+    }
+
+    fn cases() -> Vec<(Mapping, Prior)> {
+        vec![
+            (
+                Mapping::Counts {
+                    count: "a".into(),
+                    exposure: Some("b".into()),
+                },
+                Prior::parse("gamma-poisson", "alpha=2,beta=1").unwrap(),
+            ),
+            (
+                Mapping::Values { column: "b".into() },
+                Prior::parse("normal-inverse-gamma", "mu0=0,kappa0=1,alpha0=2,beta0=1").unwrap(),
+            ),
+            (
+                Mapping::Category {
+                    column: "a".into(),
+                    labels: vec!["1".into(), "x".into()],
+                },
+                Prior::parse("dirichlet-multinomial", "alpha=1;1").unwrap(),
+            ),
+        ]
+    }
+
+    proptest! {
+        #![proptest_config(ProptestConfig::with_cases(1000))]
+        #[test]
+        fn plain_rows_read_as_the_csv_crate_reads_them(
+            header in prop_oneof![
+                prop::sample::select(vec!["a,b\n", "\"a\",b\r\n", "\u{feff}a,b\n", "\na,b\n", "a,b", " \n"])
+                    .prop_map(str::to_owned),
+                "[ab,\" \r\n]{0,8}",
+            ],
+            body in prop_oneof![
+                "[0-9.,\n\r\" xNA-]{0,80}",
+                // Lines around the 64-byte limit of these tests.
+                "([0-9,]{60,70}\r?\n){0,3}[0-9,\"]{0,70}",
+            ],
+        ) {
+            let text = format!("{header}{body}");
+            for (mapping, prior) in cases() {
+                let [fast, reference] = both(text.as_bytes(), &mapping, &prior);
+                prop_assert_eq!(fast, reference, "{:?}", text);
+            }
+        }
+    }
+
+    #[test]
+    fn a_quote_deep_in_the_file_hands_over_with_the_right_line() {
+        // 50 000 plain rows (several blocks), then a quoted row and a bad cell.
+        let mut text = String::from("a,b\n");
+        text.push_str(&"3,2.5\n".repeat(50_000));
+        text.push_str("\"4\",1\n5,x\n");
+        let (mapping, prior) = cases().swap_remove(0);
+        let [fast, reference] = both(text.as_bytes(), &mapping, &prior);
+        assert_eq!(fast, reference);
+        assert_eq!(
+            fast.unwrap_err().to_string(),
+            "t.csv, line 50003, column 'b': 'x' is not a number"
+        );
+        let good = text.replace("5,x", "5,1");
+        let [fast, reference] = both(good.as_bytes(), &mapping, &prior);
+        assert_eq!(fast, reference);
+        assert_eq!(fast.unwrap().rows, 50_002);
     }
 }
