@@ -2,6 +2,7 @@
 //! elicitation methods, pools of several experts and robust mixtures.
 
 pub mod belief;
+pub mod dials;
 pub mod fit;
 mod lsq;
 pub mod methods;
