@@ -1,3 +1,4 @@
 //! Summaries of priors, posteriors and predictive distributions.
 
+pub mod curve;
 pub mod summary;
