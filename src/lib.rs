@@ -11,5 +11,7 @@ pub mod elicit;
 pub mod error;
 pub mod export;
 pub mod family;
+#[cfg(feature = "gui")]
+pub mod gui;
 pub mod numeric;
 pub mod project;

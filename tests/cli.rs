@@ -270,9 +270,34 @@ fn help_explains_every_family() {
         }
         assert!(out.contains("successes=S,trials=N"));
     }
-    let (code, out, _) = run(&[]);
+    let (code, out, _) = run(&["--help"]);
     assert_eq!(code, 0);
-    assert!(out.contains("describe"));
+    assert!(out.contains("describe") && out.contains("open"));
+}
+
+#[test]
+fn no_subcommand_or_open_asks_for_the_window_and_open_checks_the_file_first() {
+    use priorwright::cli::{Invocation, invocation};
+    let args = |a: &[&str]| -> Vec<String> { a.iter().map(|s| (*s).to_owned()).collect() };
+    assert_eq!(
+        invocation(&args(&["priorwright"])),
+        Invocation::Window(None)
+    );
+    assert_eq!(
+        invocation(&args(&["priorwright", "open", "p.ron"])),
+        Invocation::Window(Some("p.ron".into()))
+    );
+    assert_eq!(
+        invocation(&args(&["priorwright", "check", "p.ron"])),
+        Invocation::Command
+    );
+    // A missing project is refused before any window opens.
+    let (code, _, err) = run(&["open", "/no/such/project.ron"]);
+    assert_eq!(code, 2);
+    assert!(
+        err.contains("/no/such/project.ron: no such project file"),
+        "{err}"
+    );
 }
 
 #[test]

@@ -8,7 +8,7 @@ use clap::{Args, Parser, Subcommand};
 #[derive(Debug, Parser)]
 #[command(name = "priorwright", version, after_long_help = FAMILIES, after_help = "Run 'priorwright describe --help' for every family's keys.")]
 pub struct Cli {
-    /// What to do; with none, the help is shown.
+    /// What to do; with none, the desktop workbench opens on a bundled example.
     #[command(subcommand)]
     pub command: Option<Command>,
 }
@@ -16,6 +16,9 @@ pub struct Cli {
 /// Subcommands.
 #[derive(Debug, Subcommand)]
 pub enum Command {
+    /// Open the desktop workbench on a project file (with no subcommand at
+    /// all it opens on a bundled example).
+    Open(OpenArgs),
     /// Summarise a prior: mean, sd, mode, median, quantiles, intervals, cdf.
     #[command(after_help = FAMILIES)]
     Describe(DescribeArgs),
@@ -36,6 +39,13 @@ pub enum Command {
     /// Write a project's pooled prior as model code: stan, pymc, numpyro,
     /// jags, r, brms, scipy or json.
     Export(ExportArgs),
+}
+
+/// `open`.
+#[derive(Debug, Args)]
+pub struct OpenArgs {
+    /// The project file.
+    pub project: std::path::PathBuf,
 }
 
 /// `check`.

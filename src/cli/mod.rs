@@ -57,6 +57,27 @@ pub fn main_with(
     }
 }
 
+/// What the arguments ask for: the desktop window (on a project file, or on
+/// the bundled example), or a command-line run.
+#[derive(Debug, PartialEq)]
+pub enum Invocation {
+    /// Open the window; `Some` names the project file.
+    Window(Option<std::path::PathBuf>),
+    /// Anything else, for [`main_with`] (including bad arguments and help).
+    Command,
+}
+
+/// Reads the arguments without running anything.
+pub fn invocation(args: &[String]) -> Invocation {
+    match Cli::try_parse_from(args) {
+        Ok(Cli { command: None }) => Invocation::Window(None),
+        Ok(Cli {
+            command: Some(args::Command::Open(a)),
+        }) => Invocation::Window(Some(a.project)),
+        _ => Invocation::Command,
+    }
+}
+
 /// clap's multi-line message folded to one line, usage dropped.
 fn one_line(rendered: &str) -> String {
     let body = rendered.split("\n\nUsage:").next().unwrap_or(rendered);
@@ -138,6 +159,10 @@ fn component(family: &str, i: usize, text: &str) -> Result<(f64, Prior)> {
 /// Runs one command and returns what it prints.
 fn run(command: &Command) -> Result<String> {
     match command {
+        Command::Open(a) => Err(Error::Rule(format!(
+            "cannot open {}: this build has no desktop window (it was built without the gui feature); use check, export or the other commands",
+            a.project.display()
+        ))),
         Command::Describe(a) => {
             let s = start(&a.prior)?;
             let opts = summary_options(&a.summary)?;

@@ -17,7 +17,7 @@ pub mod keys;
 mod normal_inverse_gamma;
 mod normal_known_variance;
 mod prior;
-mod words;
+pub mod words;
 
 pub use beta_binomial::{BetaBinomial, Trials};
 pub use conflict::Conflict;

@@ -1,0 +1,135 @@
+//! The desktop workbench driven through egui_kittest: no window, no GPU.
+//! Each test acts as a user would and checks the project and the visible text.
+#![cfg(feature = "gui")]
+
+use egui_kittest::Harness;
+use egui_kittest::kittest::Queryable as _;
+use priorwright::elicit::dials::{self, Dial};
+use priorwright::gui::files::NoChooser;
+use priorwright::gui::{Command, Settings, Workbench, show};
+
+fn settings() -> Settings {
+    Settings {
+        state_dir: None,
+        autosave_secs: None,
+    }
+}
+
+fn harness(w: Workbench) -> Harness<'static, Workbench> {
+    Harness::builder()
+        .with_size(egui::vec2(1400.0, 1000.0))
+        .with_max_steps(12)
+        .build_ui_state(|ui, w: &mut Workbench| show(ui, w), w)
+}
+
+fn example() -> Harness<'static, Workbench> {
+    let mut h = harness(Workbench::example(Box::new(NoChooser), settings()));
+    h.run();
+    h
+}
+
+fn centre(h: &Harness<'_, Workbench>) -> f64 {
+    let w = h.state();
+    dials::setting(w.prior().unwrap(), Dial::Main).centre
+}
+
+#[test]
+fn the_example_opens_with_its_experts_and_the_caution() {
+    let h = example();
+    assert!(h.get_all_by_label("Product manager").count() >= 1);
+    assert!(h.get_all_by_label("Analyst").count() >= 1);
+    assert!(h.query_by_label_contains("Responsible use").is_some());
+    assert!(h.query_by_label_contains("This prior is as if").is_some());
+}
+
+#[test]
+fn dragging_the_centre_handle_moves_the_prior_and_undo_takes_the_whole_drag_back() {
+    let mut h = example();
+    let before = h.state().project.clone();
+    let c0 = centre(&h);
+    let view = h.state_mut().derived().prior.clone().unwrap();
+    let t = h
+        .state()
+        .view
+        .prior_transform
+        .expect("the prior plot was drawn");
+    let start = t.position_from_point(&egui_plot::PlotPoint::new(view.centre[0], view.centre[1]));
+    h.hover_at(start);
+    h.drag_at(start);
+    h.step();
+    for dx in [10.0, 30.0, 50.0, 60.0] {
+        h.hover_at(start + egui::vec2(dx, 0.0));
+        h.step();
+    }
+    h.drop_at(start + egui::vec2(60.0, 0.0));
+    h.run();
+    let picked = (centre(&h) - c0).abs() > 1e-9;
+    assert!(picked, "no drag moved the centre");
+    assert!(centre(&h) > c0, "dragged right, the centre must grow");
+    assert!(h.state().dirty());
+    h.state_mut().apply(Command::Undo);
+    h.run();
+    assert_eq!(
+        h.state().project.experts,
+        before.experts,
+        "one undo takes the whole drag back"
+    );
+    h.state_mut().apply(Command::Redo);
+    h.run();
+    assert!(centre(&h) > c0);
+}
+
+#[test]
+fn typed_judgments_fit_the_prior_and_show_stated_against_fitted() {
+    let mut h = example();
+    h.get_by_label("judgment p1").focus();
+    h.run();
+    h.get_by_label("judgment p1").type_text("0.5");
+    h.run();
+    // The example's first expert already holds two judgments; replace them.
+    h.state_mut().view.rows = vec![("0.5".into(), "0.2".into()), ("0.9".into(), "0.35".into())];
+    h.run();
+    h.get_by_label("Fit the prior to these").click();
+    h.run();
+    let prior = h.state().prior().unwrap().clone();
+    let theta = &prior.marginals()[0].distribution;
+    // Two judgments on two hyperparameters are met exactly.
+    assert!((theta.tails(0.2).0 - 0.5).abs() < 1e-6);
+    assert!((theta.tails(0.35).0 - 0.9).abs() < 1e-6);
+    assert!(h.get_all_by_label("0.900").count() >= 1, "fitted p shown");
+}
+
+#[test]
+fn adding_an_expert_and_pooling_logarithmically_changes_the_pool() {
+    let mut h = example();
+    let n = h.state().project.experts.len();
+    h.get_by_label("Add an expert").click();
+    h.run();
+    assert_eq!(h.state().project.experts.len(), n + 1);
+    let w = h
+        .state()
+        .project
+        .experts
+        .iter()
+        .map(|e| e.weight)
+        .sum::<f64>();
+    assert!((w - 1.0).abs() < 1e-12);
+    h.get_by_label("logarithmic").click();
+    h.run();
+    assert_eq!(
+        h.state().project.pooling.method,
+        priorwright::elicit::PoolMethod::Log
+    );
+    assert!(h.state().project.pooling.pooled.is_some());
+}
+
+#[test]
+fn a_data_file_that_cannot_be_read_gives_a_notice_and_changes_nothing() {
+    let mut h = example();
+    let before = h.state().project.clone();
+    h.state_mut()
+        .apply(Command::MapData("/no/such/file.csv".into()));
+    h.run();
+    assert_eq!(h.state().project, before);
+    assert!(h.query_by_label_contains("cannot be opened").is_some());
+}
