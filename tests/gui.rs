@@ -133,3 +133,98 @@ fn a_data_file_that_cannot_be_read_gives_a_notice_and_changes_nothing() {
     assert_eq!(h.state().project, before);
     assert!(h.query_by_label_contains("cannot be opened").is_some());
 }
+
+#[test]
+fn every_family_can_be_chosen_and_drawn() {
+    let mut h = example();
+    for fam in priorwright::family::FAMILY_IDS {
+        h.state_mut().apply(Command::SetFamily(fam.to_owned()));
+        h.run();
+        assert_eq!(h.state().project.scenario.family, fam);
+        assert!(
+            h.query_by_label_contains("This prior is as if").is_some(),
+            "{fam}"
+        );
+        let unknown = h.state_mut().derived().prior.clone().unwrap().unknown;
+        assert!(
+            h.query_by_label_contains(&format!("Prior of {unknown}"))
+                .is_some(),
+            "{fam}"
+        );
+    }
+}
+
+#[test]
+fn dragging_the_spread_handle_left_raises_the_ess() {
+    let mut h = example();
+    let ess0 = dials::setting(h.state().prior().unwrap(), Dial::Main).ess;
+    let view = h.state_mut().derived().prior.clone().unwrap();
+    let t = h.state().view.prior_transform.unwrap();
+    let start = t.position_from_point(&egui_plot::PlotPoint::new(view.spread[0], view.spread[1]));
+    h.hover_at(start);
+    h.drag_at(start);
+    h.step();
+    for dx in [-5.0, -15.0, -30.0] {
+        h.hover_at(start + egui::vec2(dx, 0.0));
+        h.step();
+    }
+    h.drop_at(start + egui::vec2(-30.0, 0.0));
+    h.run();
+    let ess = dials::setting(h.state().prior().unwrap(), Dial::Main).ess;
+    assert!(
+        ess > ess0 * 1.05,
+        "a 95% point nearer the centre is a tighter prior: {ess0} -> {ess}"
+    );
+}
+
+#[test]
+fn chips_in_bins_refit_the_prior() {
+    let mut h = example();
+    h.get_by_label("Chips in bins").click();
+    h.run();
+    for b in [3, 4, 4, 5, 5, 5, 6, 6, 7] {
+        h.get_by_label(&format!("add a chip to bin {b}")).click();
+        h.run();
+    }
+    let w = h.state();
+    let js = &w.project.experts[0].judgments;
+    assert!(
+        js.len() >= 3,
+        "the chips became stated probabilities: {js:?}"
+    );
+    assert!(w.dirty());
+}
+
+#[test]
+fn a_data_file_given_by_path_adds_the_posterior_and_save_reopen_gives_the_same_project() {
+    let dir = std::env::temp_dir().join(format!("pw-gui-{}", std::process::id()));
+    std::fs::create_dir_all(&dir).unwrap();
+    let csv = dir.join("clicks.csv");
+    std::fs::write(&csv, "visitor,bought\n1,1\n2,0\n3,0\n4,1\n5,0\n").unwrap();
+    let mut h = example();
+    let n = h.state().project.data.len();
+    h.state_mut().apply(Command::MapData(csv.clone()));
+    h.run();
+    // The mapping dialog guesses the first column; choose 'bought'.
+    if let Some(priorwright::gui::workbench::Dialog::Mapping(d)) = &mut h.state_mut().dialog {
+        d.mapping = priorwright::data::Mapping::Binary {
+            column: "bought".into(),
+        };
+    }
+    h.run();
+    h.get_by_label("Read the file").click();
+    h.run();
+    assert_eq!(h.state().project.data.len(), n + 1);
+    assert!(h.query_by_label_contains("Posterior").is_some());
+    assert!(
+        h.query_by_label_contains("prior's share of the information")
+            .is_some()
+    );
+    let file = dir.join("saved.ron");
+    h.state_mut().apply(Command::SaveTo(file.clone()));
+    h.run();
+    assert!(!h.state().dirty());
+    let reopened = priorwright::project::load(&file).unwrap();
+    assert_eq!(reopened, h.state().project);
+    let _ = std::fs::remove_dir_all(&dir);
+}

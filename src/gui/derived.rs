@@ -8,7 +8,7 @@ use crate::analysis::curve;
 use crate::analysis::summary::{self, ParameterSummary, SummaryOptions};
 use crate::distribution::Law;
 use crate::elicit::{Belief, dials};
-use crate::family::{Data, Future, Predictive, Prior};
+use crate::family::{Future, Predictive, Prior};
 use crate::project::Project;
 
 /// Curve points kept per density (adaptive; see [`curve::sample`]).
@@ -374,14 +374,19 @@ fn predictive(belief: &Belief, size: f64) -> Result<Predicted, String> {
     Ok(Predicted { what, view, lines })
 }
 
-/// All the data sources' statistics pooled into one, where the family allows.
-fn all_data(project: &Project) -> Option<Data> {
-    let mut it = project.data.iter().map(|d| d.statistics.clone());
-    let first = it.next()?;
-    if project.data.len() == 1 {
-        return Some(first);
+/// The prior's share of the information over every data source. Each
+/// family's share is ESS0 / (ESS0 + n), so the sources' n add up:
+/// share = 1 / (1 + Σ (1/s_i − 1)).
+fn combined_share(belief: &Belief, project: &Project) -> Option<f64> {
+    let mut extra = 0.0;
+    for d in &project.data {
+        let s = belief.prior_share(&d.statistics).ok()?;
+        if !(s > 0.0 && s <= 1.0) {
+            return None;
+        }
+        extra += 1.0 / s - 1.0;
     }
-    None
+    Some(1.0 / (1.0 + extra))
 }
 
 fn posterior_view(inputs: &Inputs, belief: &Belief) -> Result<PosteriorView, String> {
@@ -436,12 +441,16 @@ fn posterior_view(inputs: &Inputs, belief: &Belief) -> Result<PosteriorView, Str
         .map_err(|e| e.to_string())?
         .pop()
         .ok_or_else(|| "no summary".to_owned())?;
-    let data = all_data(p);
-    let prior_share = data.as_ref().and_then(|d| belief.prior_share(d).ok());
-    let conflict = data
-        .as_ref()
-        .and_then(|d| belief.conflict(d).ok().flatten())
-        .map(|c| c.p_value);
+    let prior_share = combined_share(belief, p);
+    // The conflict check is for one data set against the prior.
+    let conflict = match p.data.as_slice() {
+        [d] => belief
+            .conflict(&d.statistics)
+            .ok()
+            .flatten()
+            .map(|c| c.p_value),
+        _ => None,
+    };
     Ok(PosteriorView {
         unknown: name.clone(),
         prior: prior_curve,
