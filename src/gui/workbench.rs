@@ -6,7 +6,7 @@ use super::files::{self, Chooser, Purpose, Recovery};
 use super::history::History;
 use crate::data::{Mapping, ReadOptions, read_file};
 use crate::elicit::fit::{Fixed, Judgment, Scale};
-use crate::elicit::{Mixture, PoolMethod, dials, fit, methods};
+use crate::elicit::{PoolMethod, dials, fit, methods};
 use crate::export::Target;
 use crate::family::Prior;
 use crate::project::{self, DataSource, Expert, Pooling, Project, Scenario, StoredJudgment};
@@ -1016,16 +1016,4 @@ pub fn default_mapping(prior: &Prior, columns: &[String]) -> Mapping {
         },
         _ => Mapping::Values { column: col(0) },
     }
-}
-
-/// Whether a mixture can be pooled logarithmically (same family: always here).
-pub fn can_log_pool(p: &Project) -> bool {
-    p.experts.len() > 1
-        && Mixture::new(
-            p.experts
-                .iter()
-                .map(|e| (e.weight, e.prior.clone()))
-                .collect(),
-        )
-        .is_ok()
 }

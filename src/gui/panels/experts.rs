@@ -2,7 +2,7 @@
 
 use super::super::command::Command;
 use super::super::workbench::Workbench;
-use super::{labelled, num};
+use super::labelled;
 use crate::elicit::PoolMethod;
 use crate::family::FAMILY_IDS;
 
@@ -192,5 +192,4 @@ pub fn show(ui: &mut egui::Ui, w: &mut Workbench) {
             w.queue.push(Command::SetNotes(notes));
         }
     });
-    let _ = num;
 }
