@@ -313,6 +313,7 @@ fn main() {
                         })
                         .collect(),
                     prior,
+                    method: None,
                     changed: STAMP.to_owned(),
                 }
             })

@@ -2,36 +2,12 @@
 //! Each test acts as a user would and checks the project and the visible text.
 #![cfg(feature = "gui")]
 
-use egui_kittest::Harness;
+mod common;
+
+use common::{centre, example};
 use egui_kittest::kittest::Queryable as _;
 use priorwright::elicit::dials::{self, Dial};
-use priorwright::gui::files::NoChooser;
-use priorwright::gui::{Command, Settings, Workbench, show};
-
-fn settings() -> Settings {
-    Settings {
-        state_dir: None,
-        autosave_secs: None,
-    }
-}
-
-fn harness(w: Workbench) -> Harness<'static, Workbench> {
-    Harness::builder()
-        .with_size(egui::vec2(1400.0, 1000.0))
-        .with_max_steps(12)
-        .build_ui_state(|ui, w: &mut Workbench| show(ui, w), w)
-}
-
-fn example() -> Harness<'static, Workbench> {
-    let mut h = harness(Workbench::example(Box::new(NoChooser), settings()));
-    h.run();
-    h
-}
-
-fn centre(h: &Harness<'_, Workbench>) -> f64 {
-    let w = h.state();
-    dials::setting(w.prior().unwrap(), Dial::Main).centre
-}
+use priorwright::gui::Command;
 
 #[test]
 fn the_example_opens_with_its_experts_and_the_caution() {
@@ -226,5 +202,122 @@ fn a_data_file_given_by_path_adds_the_posterior_and_save_reopen_gives_the_same_p
     assert!(!h.state().dirty());
     let reopened = priorwright::project::load(&file).unwrap();
     assert_eq!(reopened, h.state().project);
+    let _ = std::fs::remove_dir_all(&dir);
+}
+
+#[test]
+fn ctrl_z_undoes_and_ctrl_shift_z_and_ctrl_y_redo() {
+    use egui::{Key, Modifiers};
+    let mut h = example();
+    let c0 = centre(&h);
+    let mut moved = h.state().prior().unwrap().clone();
+    let s = dials::setting(&moved, Dial::Main);
+    moved = dials::with_setting(
+        &moved,
+        Dial::Main,
+        dials::Setting {
+            centre: s.centre * 1.5,
+            ess: s.ess,
+        },
+    )
+    .unwrap();
+    h.state_mut().apply(Command::SetPrior {
+        expert: 0,
+        prior: moved,
+        continuing: false,
+    });
+    h.run();
+    let c1 = centre(&h);
+    assert!((c1 - c0 * 1.5).abs() < 1e-9);
+    h.key_press_modifiers(Modifiers::COMMAND, Key::Z);
+    h.run();
+    assert!((centre(&h) - c0).abs() < 1e-12, "Ctrl+Z undid the change");
+    h.key_press_modifiers(Modifiers::COMMAND | Modifiers::SHIFT, Key::Z);
+    h.run();
+    assert!((centre(&h) - c1).abs() < 1e-12, "Ctrl+Shift+Z redid it");
+    h.key_press_modifiers(Modifiers::COMMAND, Key::Z);
+    h.run();
+    assert!((centre(&h) - c0).abs() < 1e-12);
+    h.key_press_modifiers(Modifiers::COMMAND, Key::Y);
+    h.run();
+    assert!((centre(&h) - c1).abs() < 1e-12, "Ctrl+Y redid it");
+}
+
+#[test]
+fn the_imagined_data_form_keeps_the_centre_and_sets_the_ess() {
+    let mut h = example();
+    let c = centre(&h);
+    h.get_by_label("Imagined data").click();
+    h.run();
+    // The form starts with 8 successes in 20 trials moving the estimate to 0.3.
+    h.get_by_label("Set the ESS from this").click();
+    h.run();
+    // Beta posterior mean (c·E + s)/(E + n) = estimate solved for the ESS E
+    // (conjugate beta-binomial update, common practice).
+    let want = (8.0 - 0.3 * 20.0) / (0.3 - c);
+    assert!((centre(&h) - c).abs() < 1e-9, "the centre is kept");
+    assert!(
+        (common::ess(&h) - want).abs() < 1e-6 * want,
+        "ESS {} against {want}",
+        common::ess(&h)
+    );
+    assert_eq!(
+        h.state().project.experts[0].method,
+        Some(priorwright::project::MethodRecord::Imagined {
+            text: "successes=8,trials=20,estimate=0.3".into()
+        })
+    );
+}
+
+#[test]
+fn the_future_observation_form_fits_through_the_prior_predictive() {
+    let mut h = example();
+    h.state_mut()
+        .apply(Command::SetFamily("gamma-exponential".into()));
+    h.run();
+    h.get_by_label("About a future observation").click();
+    h.run();
+    h.state_mut().view.observable_rows =
+        vec![("0.5".into(), "400".into()), ("0.9".into(), "2500".into())];
+    h.run();
+    h.get_by_label("Fit through the prior predictive").click();
+    h.run();
+    let prior = h.state().prior().unwrap().clone();
+    let fut = prior.parse_future("n=1").unwrap();
+    let priorwright::family::Predictive::Value(law) = prior.predictive(&fut).unwrap() else {
+        panic!("a waiting time has a continuous predictive");
+    };
+    // Two judgments on the two hyperparameters are met exactly.
+    assert!((law.cdf(400.0) - 0.5).abs() < 1e-6, "{}", law.cdf(400.0));
+    assert!((law.cdf(2500.0) - 0.9).abs() < 1e-6, "{}", law.cdf(2500.0));
+    assert!(matches!(
+        h.state().project.experts[0].method,
+        Some(priorwright::project::MethodRecord::Observable { .. })
+    ));
+    assert!(h.query_by_label_contains("Prior predictive").is_some());
+}
+
+#[test]
+fn the_chips_grid_is_saved_with_the_project_and_comes_back_on_open() {
+    let dir = common::folder("chips");
+    let mut h = example();
+    h.get_by_label("Chips in bins").click();
+    h.run();
+    for b in [2, 3, 3, 4, 4, 4, 5] {
+        h.get_by_label(&format!("add a chip to bin {b}")).click();
+        h.run();
+    }
+    let chips = h.state().view.chips.clone();
+    let file = dir.join("chips.ron");
+    h.state_mut().apply(Command::SaveTo(file.clone()));
+    h.run();
+    let mut again = common::harness(priorwright::gui::Workbench::open(
+        &file,
+        Box::new(priorwright::gui::files::NoChooser),
+        common::settings(),
+    ));
+    again.run();
+    assert_eq!(again.state().view.chips, chips);
+    assert!(again.query_by_label("add a chip to bin 1").is_some());
     let _ = std::fs::remove_dir_all(&dir);
 }

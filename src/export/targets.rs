@@ -51,6 +51,20 @@ impl Target {
             .map_or("?", |(n, _)| n)
     }
 
+    /// The target as people write it, for windows and reports.
+    pub fn title(self) -> &'static str {
+        match self {
+            Self::Stan => "Stan",
+            Self::PyMC => "PyMC",
+            Self::NumPyro => "NumPyro",
+            Self::Jags => "JAGS",
+            Self::R => "R",
+            Self::Brms => "brms",
+            Self::Scipy => "scipy.stats",
+            Self::Json => "JSON",
+        }
+    }
+
     /// Why a mixture cannot be written, for targets that cannot.
     pub fn mixture_note(self) -> &'static str {
         match self {

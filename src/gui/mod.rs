@@ -64,8 +64,7 @@ pub fn show(ui: &mut egui::Ui, w: &mut Workbench) {
         // A file dialog runs on its own thread: look for its answer shortly.
         ui.ctx()
             .request_repaint_after(std::time::Duration::from_millis(100));
-    } else if w.dirty() && w.settings.autosave_secs.is_some() {
-        let secs = w.settings.autosave_secs.unwrap_or(5.0);
+    } else if let Some(secs) = w.autosave_due_in(now) {
         ui.ctx()
             .request_repaint_after(std::time::Duration::from_secs_f64(secs));
     }
@@ -108,14 +107,9 @@ struct App {
 impl eframe::App for App {
     fn ui(&mut self, ui: &mut egui::Ui, _frame: &mut eframe::Frame) {
         let close = ui.ctx().input(|i| i.viewport().close_requested());
-        if close && !self.workbench.quit {
-            if self.workbench.dirty() {
-                ui.ctx()
-                    .send_viewport_cmd(egui::ViewportCommand::CancelClose);
-                self.workbench.apply(Command::Quit);
-            } else {
-                self.workbench.apply_unguarded(Command::Quit);
-            }
+        if close && self.workbench.close_requested() {
+            ui.ctx()
+                .send_viewport_cmd(egui::ViewportCommand::CancelClose);
         }
         show(ui, &mut self.workbench);
         if self.workbench.quit {

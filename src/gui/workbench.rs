@@ -9,7 +9,9 @@ use crate::elicit::fit::{Fixed, Judgment, Scale};
 use crate::elicit::{PoolMethod, dials, fit, methods};
 use crate::export::Target;
 use crate::family::Prior;
-use crate::project::{self, DataSource, Expert, Pooling, Project, Scenario, StoredJudgment};
+use crate::project::{
+    self, DataSource, Expert, MethodRecord, Pooling, Project, Scenario, StoredJudgment,
+};
 use std::path::{Path, PathBuf};
 use std::sync::mpsc::Receiver;
 
@@ -515,6 +517,7 @@ impl Workbench {
                 let e = self.expert_mut(expert)?;
                 e.prior = f.prior;
                 e.judgments = judgments;
+                e.method = None;
                 e.changed = now;
             }
             Command::FitChips {
@@ -546,6 +549,11 @@ impl Workbench {
                         value: j.value,
                     })
                     .collect();
+                e.method = Some(MethodRecord::Chips {
+                    parameter: param,
+                    edges,
+                    chips,
+                });
                 e.changed = now;
             }
             Command::Imagined { expert, mean, text } => {
@@ -560,6 +568,7 @@ impl Workbench {
                     .map_err(|e| e.to_string())?;
                 let e = self.expert_mut(expert)?;
                 e.prior = p;
+                e.method = Some(MethodRecord::Imagined { text });
                 e.changed = now;
             }
             Command::Observable {
@@ -586,6 +595,7 @@ impl Workbench {
                 .map_err(|e| e.to_string())?;
                 let e = self.expert_mut(expert)?;
                 e.prior = f.prior;
+                e.method = Some(MethodRecord::Observable { future, judgments });
                 e.changed = now;
             }
             Command::AddExpert => {
@@ -599,6 +609,7 @@ impl Workbench {
                     weight: 0.0,
                     judgments: Vec::new(),
                     prior: base,
+                    method: None,
                     changed: now,
                 });
                 let w = 1.0 / n as f64;
@@ -672,6 +683,7 @@ impl Workbench {
                 for e in &mut self.project.experts {
                     e.prior = fresh.experts[0].prior.clone();
                     e.judgments.clear();
+                    e.method = None;
                     e.changed = now.clone();
                 }
                 self.project.data.clear();
@@ -740,6 +752,21 @@ impl Workbench {
                     text: String::new(),
                 });
             }
+        }
+    }
+
+    /// The window's close button was pressed: true when the window must stay
+    /// open because unsaved changes first need an answer.
+    pub fn close_requested(&mut self) -> bool {
+        if self.quit {
+            return false;
+        }
+        if self.dirty() {
+            self.apply(Command::Quit);
+            true
+        } else {
+            self.apply_unguarded(Command::Quit);
+            false
         }
     }
 
@@ -870,6 +897,21 @@ impl Workbench {
         }
     }
 
+    /// Seconds until unsaved work not yet in the recovery file is due to be
+    /// written; None when there is nothing to write (so no wake-up is asked).
+    pub fn autosave_due_in(&self, now: f64) -> Option<f64> {
+        let every = self.settings.autosave_secs?;
+        self.settings.state_dir.as_ref()?;
+        if !self.dirty() {
+            return None;
+        }
+        match &self.autosaved {
+            Some((p, _)) if p == &self.project => None,
+            Some((_, t)) => Some((every - (now - t)).max(0.0)),
+            None => Some(0.0),
+        }
+    }
+
     /// Takes the offered recovery file.
     pub fn recover(&mut self, r: Recovery) {
         let source = r.source.clone();
@@ -942,6 +984,7 @@ pub fn blank(family: &str) -> Project {
             weight: 1.0,
             judgments: Vec::new(),
             prior,
+            method: None,
             changed: now.clone(),
         }],
         pooling: Pooling::default(),

@@ -81,9 +81,40 @@ pub struct Expert {
     pub judgments: Vec<StoredJudgment>,
     /// The expert's prior.
     pub prior: Prior,
+    /// How the judgments were given, when not as typed probabilities: kept
+    /// so a reviewer sees what the expert actually said.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub method: Option<MethodRecord>,
     /// Last change.
     #[serde(default)]
     pub changed: String,
+}
+
+/// What an expert said through one of the other judgment forms.
+#[derive(Clone, Debug, PartialEq, serde::Serialize, serde::Deserialize)]
+pub enum MethodRecord {
+    /// Chips placed in bins over the unknown.
+    Chips {
+        /// The unknown the bins are on (None: the first).
+        #[serde(default)]
+        parameter: Option<String>,
+        /// Bin edges, increasing.
+        edges: Vec<f64>,
+        /// Chips per bin.
+        chips: Vec<f64>,
+    },
+    /// An imagined future sample and where the estimate would move.
+    Imagined {
+        /// The sample as key=value pairs.
+        text: String,
+    },
+    /// Probabilities about a future observation.
+    Observable {
+        /// The future sample as key=value pairs.
+        future: String,
+        /// (p, value): P(future observation <= value) = p.
+        judgments: Vec<(f64, f64)>,
+    },
 }
 
 /// A stated probability P(parameter ≤ value) = p.
@@ -96,6 +127,42 @@ pub struct StoredJudgment {
     pub p: f64,
     /// Value.
     pub value: f64,
+}
+
+impl MethodRecord {
+    /// A chips grid must have increasing finite edges, one more than its
+    /// bins, and no negative chip count; probabilities lie in [0, 1].
+    pub fn validate(&self) -> std::result::Result<(), String> {
+        match self {
+            Self::Chips { edges, chips, .. } => {
+                if edges.len() != chips.len() + 1 {
+                    return Err(format!(
+                        "the chips grid has {} bins but {} edges (it needs one edge more than bins)",
+                        chips.len(),
+                        edges.len()
+                    ));
+                }
+                if edges.iter().any(|e| !e.is_finite()) || edges.windows(2).any(|w| w[0] >= w[1]) {
+                    return Err("the chips grid's edges must be finite and increasing".to_owned());
+                }
+                if chips.iter().any(|c| !(c.is_finite() && *c >= 0.0)) {
+                    return Err("a chip count must be 0 or more".to_owned());
+                }
+            }
+            Self::Imagined { .. } => {}
+            Self::Observable { judgments, .. } => {
+                if let Some((p, v)) = judgments
+                    .iter()
+                    .find(|(p, v)| !(p.is_finite() && (0.0..=1.0).contains(p) && v.is_finite()))
+                {
+                    return Err(format!(
+                        "future-observation judgment p={p}, value={v} is not a probability and a number"
+                    ));
+                }
+            }
+        }
+        Ok(())
+    }
 }
 
 /// Pooling choice and its result.
@@ -178,6 +245,10 @@ impl Project {
             e.prior
                 .validate()
                 .map_err(|err| Error::Rule(format!("expert '{}': {err}", e.name)))?;
+            if let Some(m) = &e.method {
+                m.validate()
+                    .map_err(|err| Error::Rule(format!("expert '{}': {err}", e.name)))?;
+            }
         }
         let sources = self
             .data

@@ -102,7 +102,7 @@ pub fn show(ui: &mut egui::Ui, w: &mut Workbench) {
                 });
             }
             Dialog::Export(t) => {
-                ui.heading(format!("Prior for {}", t.name()));
+                ui.heading(format!("Prior for {}", t.title()));
                 let text = match w.project.belief() {
                     Ok(b) => crate::export::export(&b, t).unwrap_or_else(|e| format!("# {e}")),
                     Err(e) => format!("# {e}"),
@@ -117,7 +117,7 @@ pub fn show(ui: &mut egui::Ui, w: &mut Workbench) {
                 ui.horizontal(|ui| {
                     if ui.button("Copy to clipboard").on_hover_text("Copy the text above").clicked() {
                         ui.ctx().copy_text(text.clone());
-                        w.inform(format!("copied the {} prior to the clipboard", t.name()));
+                        w.inform(format!("copied the {} prior to the clipboard", t.title()));
                     }
                     if ui.button("Close").on_hover_text("Close this window").clicked() {
                         keep = None;

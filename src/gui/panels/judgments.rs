@@ -7,7 +7,7 @@ use super::super::workbench::Workbench;
 use super::{labelled, num};
 use crate::elicit::dials;
 use crate::elicit::methods;
-use crate::project::StoredJudgment;
+use crate::project::{MethodRecord, StoredJudgment};
 use egui_plot::{Line, MarkerShape, Plot, PlotBounds, Points};
 
 /// Which form shows.
@@ -41,6 +41,7 @@ pub fn show(ui: &mut egui::Ui, w: &mut Workbench) {
         if w.view.rows.is_empty() {
             w.view.rows = vec![(String::new(), String::new()); 3];
         }
+        load_form(w, expert);
         w.view.rows_for = Some(expert);
     }
     ui.heading("Judgments");
@@ -87,6 +88,32 @@ pub fn show(ui: &mut egui::Ui, w: &mut Workbench) {
         ui.colored_label(ui.visuals().warn_fg_color, note);
     }
     cumulative_plot(ui, w, expert);
+}
+
+/// Brings back the form an expert last used (chips, imagined sample or
+/// future-observation rows) from the project, so a reopened project or an
+/// undo shows what the expert said, not an empty grid.
+fn load_form(w: &mut Workbench, expert: usize) {
+    match w.project.experts[expert].method.clone() {
+        Some(MethodRecord::Chips { edges, chips, .. }) if edges.len() == chips.len() + 1 => {
+            w.view.edges = edges;
+            w.view.chips = chips;
+            w.view.method = Method::Chips;
+        }
+        Some(MethodRecord::Imagined { text }) => {
+            w.view.imagined = text;
+            w.view.method = Method::Imagined;
+        }
+        Some(MethodRecord::Observable { future, judgments }) => {
+            w.view.observable_future = future;
+            w.view.observable_rows = judgments.iter().map(|(p, v)| (num(*p), num(*v))).collect();
+            w.view.method = Method::Observable;
+        }
+        _ => {
+            w.view.edges.clear();
+            w.view.chips.clear();
+        }
+    }
 }
 
 /// Parses (p, value) rows; the first bad cell is named.

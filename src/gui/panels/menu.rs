@@ -82,10 +82,10 @@ pub fn show(ui: &mut egui::Ui, w: &mut Workbench) {
             }
             ui.separator();
             ui.menu_button("Export the prior", |ui| {
-                for (name, t) in TARGETS {
+                for (_, t) in TARGETS {
                     if ui
-                        .button(name)
-                        .on_hover_text(format!("Ready-to-paste prior for {}", t.name()))
+                        .button(t.title())
+                        .on_hover_text(format!("Ready-to-paste prior for {}", t.title()))
                         .clicked()
                     {
                         w.queue.push(Command::ShowExport(t));
