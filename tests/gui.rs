@@ -8,6 +8,7 @@ use common::{centre, example};
 use egui_kittest::kittest::Queryable as _;
 use priorwright::elicit::dials::{self, Dial};
 use priorwright::gui::Command;
+use priorwright::gui::panels::judgments::Row;
 
 #[test]
 fn the_example_opens_with_its_experts_and_the_caution() {
@@ -63,7 +64,7 @@ fn typed_judgments_fit_the_prior_and_show_stated_against_fitted() {
     h.get_by_label("judgment p1").type_text("0.5");
     h.run();
     // The example's first expert already holds two judgments; replace them.
-    h.state_mut().view.rows = vec![("0.5".into(), "0.2".into()), ("0.9".into(), "0.35".into())];
+    h.state_mut().view.rows = vec![Row::new("0.5", "0.2"), Row::new("0.9", "0.35")];
     h.run();
     h.get_by_label("Fit the prior to these").click();
     h.run();
@@ -277,8 +278,7 @@ fn the_future_observation_form_fits_through_the_prior_predictive() {
     h.run();
     h.get_by_label("About a future observation").click();
     h.run();
-    h.state_mut().view.observable_rows =
-        vec![("0.5".into(), "400".into()), ("0.9".into(), "2500".into())];
+    h.state_mut().view.observable_rows = vec![Row::new("0.5", "400"), Row::new("0.9", "2500")];
     h.run();
     h.get_by_label("Fit through the prior predictive").click();
     h.run();
@@ -320,4 +320,38 @@ fn the_chips_grid_is_saved_with_the_project_and_comes_back_on_open() {
     assert_eq!(again.state().view.chips, chips);
     assert!(again.query_by_label("add a chip to bin 1").is_some());
     let _ = std::fs::remove_dir_all(&dir);
+}
+
+#[test]
+fn judgments_on_both_unknowns_of_a_normal_inverse_gamma_prior_keep_what_they_are_about() {
+    let path =
+        std::path::Path::new(env!("CARGO_MANIFEST_DIR")).join("sample-projects/tablet-coating.ron");
+    let mut h = common::harness(priorwright::gui::Workbench::open(
+        &path,
+        Box::new(priorwright::gui::files::NoChooser),
+        common::settings(),
+    ));
+    h.run();
+    let before: Vec<Option<String>> = h.state().project.experts[0]
+        .judgments
+        .iter()
+        .map(|j| j.parameter.clone())
+        .collect();
+    assert!(
+        before
+            .iter()
+            .collect::<std::collections::BTreeSet<_>>()
+            .len()
+            > 1,
+        "the sample states judgments on both unknowns: {before:?}"
+    );
+    assert!(h.query_by_label("judgment about1").is_some());
+    h.get_by_label("Fit the prior to these").click();
+    h.run();
+    let after: Vec<Option<String>> = h.state().project.experts[0]
+        .judgments
+        .iter()
+        .map(|j| j.parameter.clone())
+        .collect();
+    assert_eq!(after, before);
 }

@@ -76,7 +76,7 @@ pub struct View {
     /// The handle being dragged, and the x-range frozen for the drag.
     pub dragging: Option<(super::panels::prior::Handle, (f64, f64))>,
     /// Judgment rows being typed: (probability, value) as text.
-    pub rows: Vec<(String, String)>,
+    pub rows: Vec<super::panels::judgments::Row>,
     /// The expert the rows belong to.
     pub rows_for: Option<usize>,
     /// Chips per bin and the bin edges.
@@ -88,7 +88,7 @@ pub struct View {
     /// Observable-scale judgments: future sample text and rows.
     pub observable_future: String,
     /// Rows for the observable-scale judgments.
-    pub observable_rows: Vec<(String, String)>,
+    pub observable_rows: Vec<super::panels::judgments::Row>,
     /// Typed-in data statistics (key=value).
     pub typed_data: String,
     /// Which judgment form is showing.

@@ -23,6 +23,28 @@ pub enum Method {
     Observable,
 }
 
+/// One judgment row as typed: P(about ≤ value) = p.
+#[derive(Clone, Debug, Default, PartialEq)]
+pub struct Row {
+    /// Probability, as typed.
+    pub p: String,
+    /// Value, as typed.
+    pub value: String,
+    /// The unknown it is about (None: the one the dials are on).
+    pub about: Option<String>,
+}
+
+impl Row {
+    /// A row about the unknown the dials are on.
+    pub fn new(p: impl Into<String>, value: impl Into<String>) -> Self {
+        Self {
+            p: p.into(),
+            value: value.into(),
+            about: None,
+        }
+    }
+}
+
 /// Bins in a fresh chips grid.
 const BINS: usize = 10;
 
@@ -36,10 +58,14 @@ pub fn show(ui: &mut egui::Ui, w: &mut Workbench) {
         w.view.rows = w.project.experts[expert]
             .judgments
             .iter()
-            .map(|j| (num(j.p), num(j.value)))
+            .map(|j| Row {
+                p: num(j.p),
+                value: num(j.value),
+                about: j.parameter.clone(),
+            })
             .collect();
         if w.view.rows.is_empty() {
-            w.view.rows = vec![(String::new(), String::new()); 3];
+            w.view.rows = vec![Row::default(); 3];
         }
         load_form(w, expert);
         w.view.rows_for = Some(expert);
@@ -106,7 +132,10 @@ fn load_form(w: &mut Workbench, expert: usize) {
         }
         Some(MethodRecord::Observable { future, judgments }) => {
             w.view.observable_future = future;
-            w.view.observable_rows = judgments.iter().map(|(p, v)| (num(*p), num(*v))).collect();
+            w.view.observable_rows = judgments
+                .iter()
+                .map(|(p, v)| Row::new(num(*p), num(*v)))
+                .collect();
             w.view.method = Method::Observable;
         }
         _ => {
@@ -116,10 +145,11 @@ fn load_form(w: &mut Workbench, expert: usize) {
     }
 }
 
-/// Parses (p, value) rows; the first bad cell is named.
-fn parse_rows(rows: &[(String, String)]) -> Result<Vec<(f64, f64)>, String> {
+/// Parses rows into (p, value, about); blank rows are skipped and the first
+/// bad cell is named.
+fn parse_rows(rows: &[Row]) -> Result<Vec<(f64, f64, Option<String>)>, String> {
     let mut out = Vec::new();
-    for (i, (p, v)) in rows.iter().enumerate() {
+    for (i, Row { p, value: v, about }) in rows.iter().enumerate() {
         if p.trim().is_empty() && v.trim().is_empty() {
             continue;
         }
@@ -134,63 +164,97 @@ fn parse_rows(rows: &[(String, String)]) -> Result<Vec<(f64, f64)>, String> {
         if !v.is_finite() {
             return Err(format!("row {}: value must be a finite number", i + 1));
         }
-        out.push((p, v));
+        out.push((p, v, about.clone()));
     }
     Ok(out)
 }
 
-fn rows_editor(ui: &mut egui::Ui, rows: &mut Vec<(String, String)>, id: &str) {
-    egui::Grid::new(id).num_columns(3).show(ui, |ui| {
-        ui.label("probability p")
-            .on_hover_text("The probability that the quantity is at most the value.");
-        ui.label("value")
-            .on_hover_text("The value the probability is about.");
-        ui.end_row();
-        let mut remove = None;
-        for (i, (p, v)) in rows.iter_mut().enumerate() {
-            ui.add(
-                egui::TextEdit::singleline(p)
-                    .desired_width(80.0)
-                    .hint_text("0.5"),
-            )
-            .on_hover_text(format!("Row {}: probability p in (0, 1)", i + 1))
-            .accessible_name(format!("{id} p{}", i + 1));
-            ui.add(egui::TextEdit::singleline(v).desired_width(100.0))
-                .on_hover_text(format!("Row {}: the value", i + 1))
-                .accessible_name(format!("{id} value{}", i + 1));
-            if ui
-                .small_button("remove")
-                .on_hover_text(format!("Remove row {}", i + 1))
-                .accessible_name(format!("{id} remove row {}", i + 1))
-                .clicked()
-            {
-                remove = Some(i);
+/// The rows table. `unknowns` lists the unknowns a row can be about; with
+/// more than one, each row gets a chooser (a normal-inverse-gamma expert
+/// can state judgments on the mean and on the variance in one table).
+fn rows_editor(ui: &mut egui::Ui, rows: &mut Vec<Row>, id: &str, unknowns: &[String]) {
+    let choose = unknowns.len() > 1;
+    egui::Grid::new(id)
+        .num_columns(if choose { 4 } else { 3 })
+        .min_col_width(100.0)
+        .show(ui, |ui| {
+            if choose {
+                ui.label("about")
+                    .on_hover_text("The unknown the judgment is about.");
             }
+            ui.label("probability p")
+                .on_hover_text("The probability that the quantity is at most the value.");
+            ui.label("value")
+                .on_hover_text("The value the probability is about.");
             ui.end_row();
-        }
-        if let Some(i) = remove {
-            rows.remove(i);
-        }
-    });
+            let mut remove = None;
+            for (i, row) in rows.iter_mut().enumerate() {
+                if choose {
+                    let current = row.about.clone().unwrap_or_else(|| unknowns[0].clone());
+                    egui::ComboBox::from_id_salt((id, "about", i))
+                        .selected_text(&current)
+                        .show_ui(ui, |ui| {
+                            for u in unknowns {
+                                if ui.selectable_label(&current == u, u).clicked() {
+                                    row.about = Some(u.clone());
+                                }
+                            }
+                        })
+                        .response
+                        .on_hover_text(format!("Row {}: which unknown", i + 1))
+                        .accessible_name(format!("{id} about{}", i + 1));
+                }
+                ui.add(
+                    egui::TextEdit::singleline(&mut row.p)
+                        .desired_width(80.0)
+                        .hint_text("0.5"),
+                )
+                .on_hover_text(format!("Row {}: probability p in (0, 1)", i + 1))
+                .accessible_name(format!("{id} p{}", i + 1));
+                ui.add(egui::TextEdit::singleline(&mut row.value).desired_width(100.0))
+                    .on_hover_text(format!("Row {}: the value", i + 1))
+                    .accessible_name(format!("{id} value{}", i + 1));
+                if ui
+                    .small_button("remove")
+                    .on_hover_text(format!("Remove row {}", i + 1))
+                    .accessible_name(format!("{id} remove row {}", i + 1))
+                    .clicked()
+                {
+                    remove = Some(i);
+                }
+                ui.end_row();
+            }
+            if let Some(i) = remove {
+                rows.remove(i);
+            }
+        });
     if ui
         .button("Add a row")
         .on_hover_text("Another judgment")
         .clicked()
     {
-        rows.push((String::new(), String::new()));
+        rows.push(Row::default());
     }
 }
 
 fn quantiles(ui: &mut egui::Ui, w: &mut Workbench, expert: usize) {
     ui.label("P(unknown ≤ value) = p. Two judgments fix the prior exactly; more are fitted by least squares.");
+    let (unknowns, here) = match w.prior() {
+        Some(p) => {
+            let laws = p.marginals();
+            let here = laws[dials::marginal_index(p, w.view.dial)].name.clone();
+            (laws.into_iter().map(|m| m.name).collect::<Vec<_>>(), here)
+        }
+        None => return,
+    };
     let mut rows = std::mem::take(&mut w.view.rows);
-    rows_editor(ui, &mut rows, "judgment");
+    for r in &mut rows {
+        if r.about.is_none() {
+            r.about = Some(here.clone());
+        }
+    }
+    rows_editor(ui, &mut rows, "judgment", &unknowns);
     w.view.rows = rows;
-    let param = w.prior().map(|p| {
-        p.marginals()[dials::marginal_index(p, w.view.dial)]
-            .name
-            .clone()
-    });
     if ui
         .button("Fit the prior to these")
         .on_hover_text("Replace this expert's prior by the one that best matches the judgments")
@@ -201,8 +265,8 @@ fn quantiles(ui: &mut egui::Ui, w: &mut Workbench, expert: usize) {
                 expert,
                 judgments: v
                     .into_iter()
-                    .map(|(p, value)| StoredJudgment {
-                        parameter: param.clone(),
+                    .map(|(p, value, about)| StoredJudgment {
+                        parameter: about.or_else(|| Some(here.clone())),
                         p,
                         value,
                     })
@@ -409,7 +473,7 @@ fn observable(ui: &mut egui::Ui, w: &mut Workbench, expert: usize, prior: &crate
             _ => "n=1",
         }
         .to_owned();
-        w.view.observable_rows = vec![(String::new(), String::new()); 3];
+        w.view.observable_rows = vec![Row::default(); 3];
     }
     ui.label("P(future observation ≤ value) = p, for the future sample below.");
     let id = labelled(
@@ -421,7 +485,7 @@ fn observable(ui: &mut egui::Ui, w: &mut Workbench, expert: usize, prior: &crate
         .labelled_by(id)
         .on_hover_text("The future sample the judgments are about");
     let mut rows = std::mem::take(&mut w.view.observable_rows);
-    rows_editor(ui, &mut rows, "observable");
+    rows_editor(ui, &mut rows, "observable", &[]);
     w.view.observable_rows = rows;
     if ui
         .button("Fit through the prior predictive")
@@ -432,7 +496,7 @@ fn observable(ui: &mut egui::Ui, w: &mut Workbench, expert: usize, prior: &crate
             Ok(v) if v.len() >= 2 => w.queue.push(Command::Observable {
                 expert,
                 future: w.view.observable_future.clone(),
-                judgments: v,
+                judgments: v.into_iter().map(|(p, x, _)| (p, x)).collect(),
             }),
             Ok(_) => w.error("give at least two judgments about the future observation"),
             Err(e) => w.error(format!("future-observation judgments: {e}")),
@@ -455,7 +519,11 @@ fn cumulative_plot(ui: &mut egui::Ui, w: &mut Workbench, expert: usize) {
     if w.view.method == Method::Quantiles
         && let Ok(rows) = parse_rows(&w.view.rows)
     {
-        typed = rows.into_iter().map(|(p, v)| [v, p]).collect();
+        typed = rows
+            .into_iter()
+            .filter(|(_, _, about)| about.as_deref().is_none_or(|n| n == view.unknown))
+            .map(|(p, v, _)| [v, p])
+            .collect();
     }
     Plot::new(("cumulative", expert))
         .height(200.0)

@@ -37,7 +37,13 @@ pub fn show(ui: &mut egui::Ui, w: &mut Workbench) {
             ui.colored_label(ui.visuals().error_fg_color, e);
         }
         Ok(p) => {
-            ui.label(format!("Predicted: {}.", p.what));
+            let whose = if w.project.experts.len() > 1 {
+                " under the pooled prior"
+            } else {
+                ""
+            };
+            ui.label(format!("Predicted: {}{whose}.", p.what))
+                .on_hover_text("The prior predictive: what the data may look like before they are seen, with the prior's uncertainty included");
             ui.horizontal_wrapped(|ui| {
                 for (k, v) in &p.lines {
                     ui.label(format!("{k} {v}"));
