@@ -209,7 +209,11 @@ impl Conjugate for DirichletMultinomial {
 
     /// Not yet: category counts need a chi-square-type statistic whose prior
     /// predictive has no closed form (planned with the sensitivity work).
-    fn conflict(&self, _data: &Counts) -> Option<Conflict> {
-        None
+    fn conflict(&self, data: &Counts) -> Option<Conflict> {
+        if data.counts.len() != self.alpha.len() {
+            return None;
+        }
+        let counts: Vec<u64> = data.counts.iter().map(|c| *c as u64).collect();
+        Some(Conflict::categories(&self.alpha, &counts))
     }
 }
