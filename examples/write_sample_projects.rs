@@ -351,6 +351,7 @@ fn main() {
                 missing: reduced.missing,
             }],
             history: None,
+            checks: Default::default(),
             notes: "Invented for the demonstration; not a record of a real elicitation.".to_owned(),
             created: STAMP.to_owned(),
             changed: STAMP.to_owned(),

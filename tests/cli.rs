@@ -819,3 +819,66 @@ fn bad_elicitation_input_gets_one_clear_message() {
         "--robust = 1.5 is not allowed",
     );
 }
+
+#[test]
+fn check_reports_sensitivity_and_the_conflict_threshold() {
+    let dir = concat!(env!("CARGO_MANIFEST_DIR"), "/sample-projects");
+    for name in [
+        "checkout-button",
+        "gauge-repeatability",
+        "nest-transects",
+        "sensor-offset",
+        "survey-answers",
+        "tablet-coating",
+        "valve-seat-leaks",
+    ] {
+        let v = json(&["check", &format!("{dir}/{name}.ron"), "--json"]);
+        assert_eq!(v["checks"]["conflict_threshold"], 0.05, "{name}");
+        let c = &v["conflict"];
+        assert!(
+            c["p_value"].is_number(),
+            "{name}: every family has a conflict check"
+        );
+        assert_eq!(c["threshold"], 0.05);
+        let p = c["p_value"].as_f64().unwrap();
+        assert_eq!(
+            c["warning"].is_string(),
+            p < 0.05,
+            "{name}: warning iff p < threshold"
+        );
+        let s = &v["sensitivity"];
+        let sweep = s["ess_sweep"].as_array().unwrap();
+        assert_eq!(sweep.len(), 201, "{name}");
+        let one = sweep.iter().find(|pt| pt["factor"] == 1.0).unwrap();
+        let post = &v["posterior"]["parameters"][0];
+        assert_eq!(s["parameter"], post["name"], "{name}");
+        let close = |a: &Value, b: &Value| {
+            let (a, b) = (a.as_f64().unwrap(), b.as_f64().unwrap());
+            (a - b).abs() <= 1e-13 * b.abs().max(1.0)
+        };
+        assert!(
+            close(&one["mean"], &post["mean"]),
+            "{name}: ×1 is the posterior"
+        );
+        assert!(
+            close(&one["lower"], &post["central_interval"]["lower"]),
+            "{name}"
+        );
+        assert!(
+            close(&one["upper"], &post["central_interval"]["upper"]),
+            "{name}"
+        );
+        let names: Vec<&str> = s["alternatives"]
+            .as_array()
+            .unwrap()
+            .iter()
+            .map(|r| r["name"].as_str().unwrap())
+            .collect();
+        assert_eq!(
+            names,
+            ["elicited", "vague", "sceptical", "enthusiastic"],
+            "{name}"
+        );
+        assert!(s["centre_sweep"].as_array().unwrap().len() >= 41, "{name}");
+    }
+}

@@ -1,4 +1,5 @@
 //! Summaries of priors, posteriors and predictive distributions.
 
 pub mod curve;
+pub mod sensitivity;
 pub mod summary;

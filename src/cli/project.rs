@@ -1,9 +1,11 @@
 //! `priorwright check` and `priorwright export` on a project file.
 
 use super::args::{CheckArgs, ExportArgs};
+use crate::analysis::sensitivity::{self, Sensitivity};
 use crate::analysis::summary::{self, SummaryOptions};
 use crate::data::{ReadOptions, read_file};
 use crate::elicit::Belief;
+use crate::elicit::dials::Dial;
 use crate::error::{Error, Result};
 use crate::export::{self, TARGETS, Target};
 use crate::project::{self, Project};
@@ -112,16 +114,99 @@ pub fn check(a: &CheckArgs) -> Result<String> {
         out["log_marginal_likelihood"] = json!(ln_ml);
         out["prior_share"] = json!(share);
         if let Some(c) = conflict {
+            let t = p.checks.conflict_threshold;
             out["conflict"] = json!({
                 "statistic": c.statistic, "observed": c.observed, "lower_tail": c.lower_tail,
                 "upper_tail": c.upper_tail, "p_value": c.p_value, "mid_p": c.mid_p,
+                "threshold": t, "warning": c.warning(t),
             });
         }
+        let stats: Vec<_> = data.iter().map(|d| d.1.clone()).collect();
+        let s = sensitivity::run(
+            &belief,
+            &p.log_pool()?,
+            &p.checks.alternatives,
+            &stats,
+            Dial::Main,
+            0.95,
+        )?;
+        out["sensitivity"] = sensitivity_json(&s)?;
     }
+    out["checks"] = json!({ "conflict_threshold": p.checks.conflict_threshold });
     if a.json {
         return Ok(serde_json::to_string_pretty(&out).unwrap_or_default() + "\n");
     }
     Ok(check_table(&p, &out))
+}
+
+/// The sensitivity check as JSON: both sweeps and the comparison table.
+fn sensitivity_json(s: &Sensitivity) -> Result<Value> {
+    let sweep = |w: &sensitivity::Sweep, key: &str| -> Vec<Value> {
+        w.points
+            .iter()
+            .map(|pt| json!({ key: pt.x, "mean": pt.mean, "lower": pt.lower, "upper": pt.upper }))
+            .collect()
+    };
+    let mut rows = Vec::new();
+    for (i, r) in s.table.iter().enumerate() {
+        let hyper = if i == 0 {
+            Value::Null
+        } else {
+            belief_json(&Belief::One(s.alternatives[i - 1].prior.clone()))?["hyperparameters"]
+                .clone()
+        };
+        rows.push(json!({
+            "name": r.name, "how": r.how, "hyperparameters": hyper,
+            "prior_mean": r.prior_mean, "prior_share": r.prior_share,
+            "posterior": { "mean": r.posterior.mean, "lower": r.posterior.lower, "upper": r.posterior.upper },
+        }));
+    }
+    Ok(json!({
+        "parameter": s.ess.parameter,
+        "level": s.ess.level,
+        "ess_sweep": sweep(&s.ess, "factor"),
+        "centre_sweep": sweep(&s.centre, "centre"),
+        "default_alternatives": s.default_alternatives,
+        "alternatives": rows,
+    }))
+}
+
+/// The sensitivity part of the table: a few sweep points and the alternatives.
+fn sensitivity_table(s: &mut String, v: &Value) {
+    use std::fmt::Write as _;
+    let f = |x: &Value| super::table::fmt(x.as_f64());
+    let _ = writeln!(
+        s,
+        "\nsensitivity ({}, posterior mean and {} interval)",
+        v["parameter"].as_str().unwrap_or(""),
+        f(&v["level"])
+    );
+    let sweep = v["ess_sweep"].as_array().cloned().unwrap_or_default();
+    let n = sweep.len();
+    for i in [0, n / 4, n / 2, 3 * n / 4, n.saturating_sub(1)] {
+        if let Some(pt) = sweep.get(i) {
+            let _ = writeln!(
+                s,
+                "  ESS x{:<25} {} [{}, {}]",
+                f(&pt["factor"]),
+                f(&pt["mean"]),
+                f(&pt["lower"]),
+                f(&pt["upper"])
+            );
+        }
+    }
+    for r in v["alternatives"].as_array().into_iter().flatten() {
+        let post = &r["posterior"];
+        let _ = writeln!(
+            s,
+            "  {:<28} {} [{}, {}]  ({})",
+            r["name"].as_str().unwrap_or(""),
+            f(&post["mean"]),
+            f(&post["lower"]),
+            f(&post["upper"]),
+            r["how"].as_str().unwrap_or("")
+        );
+    }
 }
 
 fn check_table(p: &Project, v: &Value) -> String {
@@ -187,13 +272,13 @@ fn check_table(p: &Project, v: &Value) -> String {
                 c["statistic"].as_str().unwrap_or(""),
                 f(&c["p_value"])
             );
-            if c["p_value"].as_f64().is_some_and(|p| p < 0.05) {
-                let _ = writeln!(
-                    s,
-                    "  Warning: the data fall in the tail of what the prior predicted; check both before relying on the posterior."
-                );
+            if let Some(w) = c["warning"].as_str() {
+                let _ = writeln!(s, "  Warning: {w}");
             }
         }
+    }
+    if let Some(sens) = v.get("sensitivity") {
+        sensitivity_table(&mut s, sens);
     }
     if p.scenario.high_stakes {
         let _ = writeln!(

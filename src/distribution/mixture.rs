@@ -83,6 +83,9 @@ impl MixtureLaw {
         if self.parts.len() == 1 {
             return self.parts[0].1.quantile_near(p, hint);
         }
+        if let Some(x) = hint.and_then(|h| self.quantile_from_hint(p, h)) {
+            return x;
+        }
         let qs: Vec<f64> = self.parts.iter().map(|(_, d)| d.quantile(p)).collect();
         let (mut a, mut b) = qs
             .iter()
@@ -121,6 +124,66 @@ impl MixtureLaw {
             .filter(|h| *h > a && *h < b)
             .map_or(0.5 * (ua + ub), |h| if positive { h.ln() } else { h });
         to_x(increasing_root(g, ua, ub, start, 1e-14))
+    }
+
+    /// The p-quantile found by bracketing outward from a nearby value (a
+    /// sweep's previous point): a few tail evaluations instead of one
+    /// quantile per component. None when no bracket is found close by; the
+    /// caller then brackets with the components' quantiles.
+    fn quantile_from_hint(&self, p: f64, hint: f64) -> Option<f64> {
+        let (lo, hi) = self.support();
+        if !(hint.is_finite() && hint > lo && hint < hi) {
+            return None;
+        }
+        let positive = self.positive();
+        let to_x = |u: f64| if positive { u.exp() } else { u };
+        let upper = p > 0.5;
+        let target = if upper { 1.0 - p } else { p };
+        // ln of the tail against ln of the target, increasing in u.
+        let g = |u: f64| {
+            let x = to_x(u);
+            let (l, r) = self.tails(x);
+            let t = if upper { r } else { l };
+            let dxdu = if positive { x } else { 1.0 };
+            let slope = self.pdf(x) * dxdu / t;
+            if upper {
+                (target.ln() - t.ln(), slope)
+            } else {
+                (t.ln() - target.ln(), slope)
+            }
+        };
+        let u0 = if positive { hint.ln() } else { hint };
+        let g0 = g(u0).0;
+        if !g0.is_finite() {
+            return None;
+        }
+        if g0 == 0.0 {
+            return Some(hint);
+        }
+        let mut step = if positive {
+            0.01
+        } else {
+            0.01 * self.sd().filter(|s| s.is_finite() && *s > 0.0)?
+        };
+        let dir = if g0 < 0.0 { 1.0 } else { -1.0 };
+        let mut near = u0;
+        for _ in 0..12 {
+            let far = near + dir * step;
+            if to_x(far) <= lo || to_x(far) >= hi {
+                return None;
+            }
+            let gf = g(far).0;
+            if !gf.is_finite() {
+                return None;
+            }
+            if (gf < 0.0) != (g0 < 0.0) || gf == 0.0 {
+                let (ua, ub) = if dir > 0.0 { (near, far) } else { (far, near) };
+                return Some(to_x(increasing_root(g, ua, ub, 0.5 * (ua + ub), 1e-14)));
+            }
+            near = far;
+            step *= 2.0;
+        }
+        None
     }
 
     /// The p-quantile.

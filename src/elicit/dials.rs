@@ -171,6 +171,44 @@ pub fn with_setting(prior: &Prior, dial: Dial, setting: Setting) -> Result<Prior
     })
 }
 
+/// The prior with every pseudo-observation count multiplied by `factor`
+/// and every centre kept: each dial's ESS becomes `factor` times its value
+/// (for normal-inverse-gamma both the mean's and the variance's). This is
+/// the ESS scaling of the sensitivity sweep.
+pub fn scaled(prior: &Prior, factor: f64) -> Result<Prior> {
+    if !(factor.is_finite() && factor > 0.0) {
+        return Err(Error::invalid(
+            "ESS factor",
+            factor,
+            "it must be a positive number",
+        ));
+    }
+    let c = factor;
+    Ok(match prior {
+        Prior::BetaBinomial(p) => Prior::BetaBinomial(BetaBinomial::new(c * p.alpha, c * p.beta)?),
+        Prior::GammaPoisson(p) => Prior::GammaPoisson(GammaPoisson::new(c * p.alpha, c * p.beta)?),
+        Prior::GammaExponential(p) => {
+            Prior::GammaExponential(GammaExponential::new(c * p.alpha, c * p.beta)?)
+        }
+        Prior::NormalKnownVariance(p) => {
+            Prior::NormalKnownVariance(NormalKnownVariance::new(p.mu0, c * p.kappa0, p.sigma)?)
+        }
+        Prior::NormalInverseGamma(p) => Prior::NormalInverseGamma(NormalInverseGamma::new(
+            p.mu0,
+            c * p.kappa0,
+            c * p.alpha0,
+            c * p.beta0,
+        )?),
+        Prior::DirichletMultinomial(p) => Prior::DirichletMultinomial(DirichletMultinomial::new(
+            p.alpha.iter().map(|a| c * a).collect(),
+            p.names.clone(),
+        )?),
+        Prior::InverseGammaVariance(p) => {
+            Prior::InverseGammaVariance(InverseGammaVariance::new(c * p.alpha, c * p.beta, p.mu)?)
+        }
+    })
+}
+
 fn range_words(lo: f64, hi: f64) -> String {
     match (lo.is_finite(), hi.is_finite()) {
         (true, true) => format!("it must lie strictly between {lo} and {hi}"),
@@ -287,6 +325,24 @@ mod tests {
         .iter()
         .map(|(f, t)| Prior::parse(f, t).unwrap())
         .collect()
+    }
+
+    #[test]
+    fn scaling_multiplies_every_dials_ess_and_keeps_every_centre() {
+        for p in all_families() {
+            let q = scaled(&p, 2.5).unwrap();
+            for d in available(&p) {
+                let (s, t) = (setting(&p, d), setting(&q, d));
+                assert!((s.centre - t.centre).abs() < 1e-12 * s.centre.abs().max(1.0));
+                assert!(
+                    (t.ess - 2.5 * s.ess).abs() < 1e-12 * t.ess,
+                    "{} {d:?}",
+                    p.id()
+                );
+            }
+            assert_eq!(scaled(&p, 1.0).unwrap(), p);
+        }
+        assert!(scaled(&all_families()[0], 0.0).is_err());
     }
 
     #[test]

@@ -40,6 +40,26 @@ impl Conflict {
         }
     }
 
+    /// A plain-words warning when the p-value is below `threshold`; None
+    /// when the data sit comfortably inside what the prior predicted.
+    pub fn warning(&self, threshold: f64) -> Option<String> {
+        if self.p_value >= threshold {
+            return None;
+        }
+        let side = if self.lower_tail < self.upper_tail {
+            "lower"
+        } else {
+            "upper"
+        };
+        Some(format!(
+            "Prior and data disagree: the observed {} ({}) lies in the {side} tail of what the prior predicted (p {}, below the threshold {}). Check the prior's reasoning and the data before relying on the posterior.",
+            self.statistic,
+            crate::family::words::short(self.observed),
+            p_words(self.p_value),
+            threshold
+        ))
+    }
+
     /// Mid-p tails of a count k under a discrete prior predictive.
     pub fn count(statistic: &str, k: u64, predictive: &Discrete) -> Self {
         let half = 0.5 * predictive.pmf(k);
@@ -52,6 +72,15 @@ impl Conflict {
     pub fn value(statistic: &str, t: f64, predictive: &Continuous) -> Self {
         let (lo, up) = predictive.tails(t);
         Self::from_tails(statistic, t, lo, up, false)
+    }
+}
+
+/// A p-value for a sentence: "= 0.012", or "< 0.001" when smaller.
+pub fn p_words(p: f64) -> String {
+    if p < 0.001 {
+        "< 0.001".to_owned()
+    } else {
+        format!("= {p:.3}")
     }
 }
 

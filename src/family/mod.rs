@@ -20,7 +20,7 @@ mod prior;
 pub mod words;
 
 pub use beta_binomial::{BetaBinomial, Trials};
-pub use conflict::Conflict;
+pub use conflict::{Conflict, p_words};
 pub use dirichlet_multinomial::{Counts, DirichletMultinomial};
 pub use gamma_exponential::{GammaExponential, LifeTest};
 pub use gamma_poisson::{EventCounts, GammaPoisson};

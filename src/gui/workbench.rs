@@ -990,6 +990,7 @@ pub fn blank(family: &str) -> Project {
         pooling: Pooling::default(),
         data: Vec::new(),
         history: None,
+        checks: Default::default(),
         notes: String::new(),
         created: now.clone(),
         changed: now,

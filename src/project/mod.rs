@@ -37,6 +37,9 @@ pub struct Project {
     /// Historical data used as a discounted prior.
     #[serde(default)]
     pub history: Option<History>,
+    /// How the prior is checked (conflict threshold, alternative priors).
+    #[serde(default, skip_serializing_if = "Checks::is_default")]
+    pub checks: Checks,
     /// Free-form notes for the record.
     #[serde(default)]
     pub notes: String,
@@ -46,6 +49,68 @@ pub struct Project {
     /// When it was last changed.
     #[serde(default)]
     pub changed: String,
+}
+
+/// Settings of the checks that make a prior defensible, kept with the
+/// project so the report and a reviewer see the same ones.
+#[derive(Clone, Debug, PartialEq, serde::Serialize, serde::Deserialize)]
+pub struct Checks {
+    /// A conflict p-value below this is reported as a warning.
+    #[serde(default = "default_threshold")]
+    pub conflict_threshold: f64,
+    /// Priors to compare the elicited one with; empty: the defaults
+    /// (vague, sceptical, enthusiastic), rebuilt from the current prior.
+    #[serde(default)]
+    pub alternatives: Vec<crate::analysis::sensitivity::Alternative>,
+}
+
+/// The usual 5% (common practice).
+pub const DEFAULT_CONFLICT_THRESHOLD: f64 = 0.05;
+
+fn default_threshold() -> f64 {
+    DEFAULT_CONFLICT_THRESHOLD
+}
+
+impl Default for Checks {
+    fn default() -> Self {
+        Self {
+            conflict_threshold: DEFAULT_CONFLICT_THRESHOLD,
+            alternatives: Vec::new(),
+        }
+    }
+}
+
+impl Checks {
+    /// Whether nothing differs from the defaults (then nothing is written).
+    pub fn is_default(&self) -> bool {
+        self == &Self::default()
+    }
+
+    /// The threshold lies in (0, 0.5]; each alternative is a valid prior of
+    /// the project's family.
+    pub fn validate(&self, family: &str) -> Result<()> {
+        let t = self.conflict_threshold;
+        if !(t > 0.0 && t <= 0.5) {
+            return Err(Error::invalid(
+                "conflict threshold",
+                t,
+                "it must lie in (0, 0.5]",
+            ));
+        }
+        for a in &self.alternatives {
+            if a.prior.id() != family {
+                return Err(Error::Rule(format!(
+                    "alternative prior '{}' is {} in a {family} project",
+                    a.name,
+                    a.prior.id()
+                )));
+            }
+            a.prior
+                .validate()
+                .map_err(|e| Error::Rule(format!("alternative prior '{}': {e}", a.name)))?;
+        }
+        Ok(())
+    }
 }
 
 /// The question being answered.
@@ -262,6 +327,7 @@ impl Project {
             e_family(&d.statistics, fam)
                 .map_err(|err| Error::Rule(format!("data '{}': {err}", d.name)))?;
         }
+        self.checks.validate(fam)?;
         let total: f64 = self.experts.iter().map(|e| e.weight).sum();
         if self
             .experts
