@@ -141,8 +141,11 @@ pub fn shift_belief(belief: &Belief, dial: Dial, centre: f64) -> Result<Belief> 
     })
 }
 
+/// A map of the real line.
+type Map = fn(f64) -> f64;
+
 /// Maps a centre's open range to the whole line and back.
-fn open_scale(lo: f64, hi: f64) -> (fn(f64) -> f64, fn(f64) -> f64) {
+fn open_scale(lo: f64, hi: f64) -> (Map, Map) {
     if lo == 0.0 && hi == 1.0 {
         (|x| (x / (1.0 - x)).ln(), |u| 1.0 / (1.0 + (-u).exp()))
     } else if lo == 0.0 {
