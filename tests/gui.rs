@@ -192,7 +192,7 @@ fn a_data_file_given_by_path_adds_the_posterior_and_save_reopen_gives_the_same_p
     h.get_by_label("Read the file").click();
     h.run();
     assert_eq!(h.state().project.data.len(), n + 1);
-    assert!(h.query_by_label_contains("Posterior").is_some());
+    assert!(h.query_by_label("Posterior").is_some());
     assert!(
         h.query_by_label_contains("prior's share of the information")
             .is_some()
@@ -354,4 +354,83 @@ fn judgments_on_both_unknowns_of_a_normal_inverse_gamma_prior_keep_what_they_are
         .map(|j| j.parameter.clone())
         .collect();
     assert_eq!(after, before);
+}
+
+#[test]
+fn with_data_the_window_shows_the_hpd_set_the_sensitivity_table_and_a_threshold_warning() {
+    let path = std::path::Path::new(env!("CARGO_MANIFEST_DIR"))
+        .join("sample-projects/checkout-button.ron");
+    let mut h = common::harness(priorwright::gui::Workbench::open(
+        &path,
+        Box::new(priorwright::gui::files::NoChooser),
+        common::settings(),
+    ));
+    h.run();
+    let post = h.state_mut().derived().posterior.clone().unwrap().unwrap();
+    let hpd = &post.summary.hpd;
+    assert!(hpd.pieces.is_empty(), "one piece here");
+    let shown = format!(
+        "{} to {}",
+        priorwright::gui::panels::num(hpd.lower),
+        priorwright::gui::panels::num(hpd.upper)
+    );
+    assert!(
+        h.query_by_label(&shown).is_some(),
+        "HPD set {shown} is shown"
+    );
+    for row in ["elicited", "vague", "sceptical", "enthusiastic"] {
+        assert!(h.query_by_label(row).is_some(), "{row} row");
+    }
+    assert!(
+        h.query_by_label_contains("Sensitivity to the prior")
+            .is_some()
+    );
+    assert!(
+        h.query_by_label_contains("Prior and data disagree")
+            .is_none()
+    );
+    // Data far above every expert: 60 successes in 100 trials.
+    h.state_mut().apply(Command::RemoveData(0));
+    let stats = h
+        .state()
+        .prior()
+        .unwrap()
+        .parse_data("successes=60,trials=100")
+        .unwrap();
+    h.state_mut()
+        .apply(Command::AddData(priorwright::project::DataSource {
+            name: "surprising".into(),
+            path: None,
+            mapping: None,
+            missing_policy: priorwright::data::Missing::Skip,
+            statistics: stats,
+            rows: 100,
+            missing: 0,
+        }));
+    h.run();
+    let p = h
+        .state_mut()
+        .derived()
+        .posterior
+        .clone()
+        .unwrap()
+        .unwrap()
+        .conflict
+        .unwrap()
+        .p_value;
+    assert!(p < 0.05, "p = {p}");
+    assert!(
+        h.query_by_label_contains("Prior and data disagree")
+            .is_some()
+    );
+    h.state_mut().apply(Command::SetConflictThreshold(p / 2.0));
+    h.run();
+    assert!(
+        h.query_by_label_contains("Prior and data disagree")
+            .is_none(),
+        "below the threshold p/2 no warning"
+    );
+    h.state_mut().apply(Command::Undo);
+    h.run();
+    assert_eq!(h.state().project.checks.conflict_threshold, 0.05);
 }

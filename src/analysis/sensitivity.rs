@@ -33,6 +33,8 @@ pub struct Sweep {
     pub parameter: String,
     /// Central interval level.
     pub level: f64,
+    /// The knob's value for the elicited prior (ESS factor 1, or its centre).
+    pub elicited: f64,
     /// The points, in increasing x.
     pub points: Vec<Point>,
 }
@@ -241,6 +243,7 @@ pub fn ess_sweep(
     Ok(Sweep {
         parameter: name_of(belief, index),
         level,
+        elicited: 1.0,
         points,
     })
 }
@@ -287,6 +290,7 @@ pub fn centre_sweep(
     Ok(Sweep {
         parameter: name_of(belief, index),
         level,
+        elicited: here,
         points,
     })
 }

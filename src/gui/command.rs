@@ -67,6 +67,8 @@ pub enum Command {
     SetPool(PoolMethod),
     /// Robust-mixture weight (None: off).
     SetRobust(Option<f64>),
+    /// The conflict p-value below which a warning shows.
+    SetConflictThreshold(f64),
     /// Switch the model family (every expert starts from a plain prior).
     SetFamily(String),
     /// Edit the title.

@@ -5,10 +5,11 @@
 //! shows exactly what the command line would report.
 
 use crate::analysis::curve;
+use crate::analysis::sensitivity::{self, Sensitivity};
 use crate::analysis::summary::{self, ParameterSummary, SummaryOptions};
 use crate::distribution::Law;
 use crate::elicit::{Belief, dials};
-use crate::family::{Future, Predictive, Prior};
+use crate::family::{Conflict, Future, Predictive, Prior};
 use crate::project::Project;
 
 /// Curve points kept per density (adaptive; see [`curve::sample`]).
@@ -104,8 +105,10 @@ pub struct PosteriorView {
     pub summary: ParameterSummary,
     /// Share of the posterior's information from the prior.
     pub prior_share: Option<f64>,
-    /// Prior–data conflict tail probability, where the family has one.
-    pub conflict: Option<f64>,
+    /// Prior–data conflict check (one data set against the prior).
+    pub conflict: Option<Conflict>,
+    /// ESS and centre sweeps and the alternatives, or why they failed.
+    pub sensitivity: Result<Sensitivity, String>,
 }
 
 /// All derived numbers.
@@ -374,21 +377,6 @@ fn predictive(belief: &Belief, size: f64) -> Result<Predicted, String> {
     Ok(Predicted { what, view, lines })
 }
 
-/// The prior's share of the information over every data source. Each
-/// family's share is ESS0 / (ESS0 + n), so the sources' n add up:
-/// share = 1 / (1 + Σ (1/s_i − 1)).
-fn combined_share(belief: &Belief, project: &Project) -> Option<f64> {
-    let mut extra = 0.0;
-    for d in &project.data {
-        let s = belief.prior_share(&d.statistics).ok()?;
-        if !(s > 0.0 && s <= 1.0) {
-            return None;
-        }
-        extra += 1.0 / s - 1.0;
-    }
-    Some(1.0 / (1.0 + extra))
-}
-
 fn posterior_view(inputs: &Inputs, belief: &Belief) -> Result<PosteriorView, String> {
     let p = &inputs.project;
     let post = p
@@ -441,16 +429,19 @@ fn posterior_view(inputs: &Inputs, belief: &Belief) -> Result<PosteriorView, Str
         .map_err(|e| e.to_string())?
         .pop()
         .ok_or_else(|| "no summary".to_owned())?;
-    let prior_share = combined_share(belief, p);
+    let data: Vec<_> = p.data.iter().map(|d| d.statistics.clone()).collect();
+    let prior_share = sensitivity::prior_share(belief, &data)
+        .ok()
+        .filter(|s| *s > 0.0 && *s <= 1.0);
     // The conflict check is for one data set against the prior.
     let conflict = match p.data.as_slice() {
-        [d] => belief
-            .conflict(&d.statistics)
-            .ok()
-            .flatten()
-            .map(|c| c.p_value),
+        [d] => belief.conflict(&d.statistics).ok().flatten(),
         _ => None,
     };
+    let sensitivity = p
+        .log_pool()
+        .and_then(|base| sensitivity::run(belief, &base, &p.checks.alternatives, &data, dial, 0.95))
+        .map_err(|e| e.to_string());
     Ok(PosteriorView {
         unknown: name.clone(),
         prior: prior_curve,
@@ -462,5 +453,6 @@ fn posterior_view(inputs: &Inputs, belief: &Belief) -> Result<PosteriorView, Str
         summary,
         prior_share,
         conflict,
+        sensitivity,
     })
 }

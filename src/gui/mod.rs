@@ -55,6 +55,8 @@ pub fn show(ui: &mut egui::Ui, w: &mut Workbench) {
             });
             ui.separator();
             panels::data::posterior(ui, w);
+            ui.separator();
+            panels::sensitivity::show(ui, w);
         });
     });
     panels::dialogs::show(ui, w);

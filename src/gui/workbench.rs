@@ -696,6 +696,7 @@ impl Workbench {
                         self.project.scenario.family
                     ));
             }
+            Command::SetConflictThreshold(t) => self.project.checks.conflict_threshold = t,
             Command::SetTitle(t) => self.project.scenario.title = t,
             Command::SetNotes(t) => self.project.notes = t,
             Command::AddData(d) => {

@@ -183,13 +183,17 @@ pub fn posterior(ui: &mut egui::Ui, w: &mut Workbench) {
                 format!("{} to {}", num(s.central.lower), num(s.central.upper)),
                 "Equal tails of 2.5% each",
             );
-            let hpd = s
-                .hpd
-                .pieces
-                .iter()
-                .map(|(a, b)| format!("{} to {}", num(*a), num(*b)))
-                .collect::<Vec<_>>()
-                .join(" and ");
+            // One interval keeps no pieces: its ends are the set.
+            let hpd = if s.hpd.pieces.is_empty() {
+                format!("{} to {}", num(s.hpd.lower), num(s.hpd.upper))
+            } else {
+                s.hpd
+                    .pieces
+                    .iter()
+                    .map(|(a, b)| format!("{} to {}", num(*a), num(*b)))
+                    .collect::<Vec<_>>()
+                    .join(" and ")
+            };
             row(
                 ui,
                 "95% highest-density set",
@@ -212,21 +216,40 @@ pub fn posterior(ui: &mut egui::Ui, w: &mut Workbench) {
                     "Prior ESS over posterior ESS: how much the posterior still rests on the prior",
                 );
             }
-            if let Some(p) = v.conflict {
+            if let Some(c) = &v.conflict {
                 row(
                     ui,
                     "prior–data conflict p",
-                    format!("{p:.3}"),
+                    format!("{:.3}", c.p_value),
                     "Two-sided prior-predictive tail probability of the observed statistic",
                 );
             }
         });
-    if let Some(p) = v.conflict
-        && p < 0.05
-    {
-        ui.colored_label(
-            ui.visuals().warn_fg_color,
-            format!("The data are surprising under this prior (tail probability {p:.3} < 0.05): check the judgments and the data before relying on the posterior."),
-        );
+    if let Some(c) = &v.conflict {
+        ui.label(egui::RichText::new(format!("Conflict statistic: {}.", c.statistic)).small());
+        let mut t = w.project.checks.conflict_threshold;
+        ui.horizontal(|ui| {
+            let id = labelled(
+                ui,
+                "Warn below p =",
+                "The conflict p-value below which the window, the command line and the report warn",
+            );
+            if ui
+                .add(
+                    egui::DragValue::new(&mut t)
+                        .range(0.001..=0.5)
+                        .speed(0.001)
+                        .max_decimals(3),
+                )
+                .labelled_by(id)
+                .on_hover_text("Conflict threshold (0.05 is usual)")
+                .changed()
+            {
+                w.queue.push(Command::SetConflictThreshold(t));
+            }
+        });
+        if let Some(text) = c.warning(w.project.checks.conflict_threshold) {
+            ui.colored_label(ui.visuals().warn_fg_color, text);
+        }
     }
 }

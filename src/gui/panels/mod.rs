@@ -9,6 +9,7 @@ pub mod menu;
 pub mod notices;
 pub mod predictive;
 pub mod prior;
+pub mod sensitivity;
 
 /// A label tied to the next widget, so tests and screen readers find it by name.
 pub fn labelled(ui: &mut egui::Ui, text: &str, tip: &str) -> egui::Id {
