@@ -39,6 +39,23 @@ pub enum Command {
     /// Write a project's pooled prior as model code: stan, pymc, numpyro,
     /// jags, r, brms, scipy or json.
     Export(ExportArgs),
+    /// Write a self-contained HTML report of a project's elicitation:
+    /// judgments, priors, predictive, posterior, sensitivity, conflict,
+    /// export lines, notes and cautions.
+    Report(ReportArgs),
+}
+
+/// `report`.
+#[derive(Debug, Args)]
+pub struct ReportArgs {
+    /// The project file.
+    pub project: std::path::PathBuf,
+    /// A data file to read with the project's column mapping (instead of its stored statistics).
+    #[arg(long)]
+    pub data: Option<std::path::PathBuf>,
+    /// The HTML file to write (atomically).
+    #[arg(long)]
+    pub out: std::path::PathBuf,
 }
 
 /// `open`.

@@ -5,6 +5,8 @@ mod fitting;
 mod help;
 pub(crate) mod json;
 mod project;
+
+pub use project::{report_html, report_of};
 pub(crate) mod table;
 
 pub use args::Cli;
@@ -197,6 +199,7 @@ fn run(command: &Command) -> Result<String> {
         Command::Predict(a) => predict(a),
         Command::Check(a) => project::check(a),
         Command::Export(a) => project::export(a),
+        Command::Report(a) => project::report(a),
         Command::Fit(a) => {
             let out = fitting::run(a)?;
             Ok(if a.json {

@@ -1,6 +1,6 @@
-//! `priorwright check` and `priorwright export` on a project file.
+//! `priorwright check`, `export` and `report` on a project file.
 
-use super::args::{CheckArgs, ExportArgs};
+use super::args::{CheckArgs, ExportArgs, ReportArgs};
 use crate::analysis::sensitivity::{self, Sensitivity};
 use crate::analysis::summary::{self, SummaryOptions};
 use crate::data::{ReadOptions, read_file};
@@ -24,7 +24,61 @@ fn belief_json(b: &Belief) -> Result<Value> {
 
 /// `check`.
 pub fn check(a: &CheckArgs) -> Result<String> {
-    let p = load(&a.project)?;
+    let (p, out, _) = check_value(&a.project, a.data.as_deref())?;
+    if a.json {
+        return Ok(serde_json::to_string_pretty(&out).unwrap_or_default() + "\n");
+    }
+    Ok(check_table(&p, &out))
+}
+
+/// `report`: the check's numbers and the project's curves as one HTML file.
+pub fn report(a: &ReportArgs) -> Result<String> {
+    let html = report_html(&a.project, a.data.as_deref())?;
+    project::write_atomic(&a.out, &html).map_err(|e| Error::Rule(e.to_string()))?;
+    Ok(format!("wrote {}\n", a.out.display()))
+}
+
+/// The report's HTML for a project (and a data file read with its mapping).
+pub fn report_html(
+    project_path: &std::path::Path,
+    data_file: Option<&std::path::Path>,
+) -> Result<String> {
+    let (p, check, data) = check_value(project_path, data_file)?;
+    let stats: Vec<_> = data.into_iter().map(|d| d.1).collect();
+    crate::export::report::html(&p, &check, &stats, &project::now_utc())
+}
+
+/// One data set: name, statistics, rows read, rows skipped.
+type DataSet = (String, crate::family::Data, u64, u64);
+
+/// The project, the `check --json` document and the data it used.
+fn check_value(
+    project_path: &std::path::Path,
+    data_file: Option<&std::path::Path>,
+) -> Result<(Project, Value, Vec<DataSet>)> {
+    let p = load(project_path)?;
+    check_of(p, project_path, data_file)
+}
+
+/// The report's HTML for a project in memory (the desktop app's button).
+/// `path` is where the project lives or will live: data files are looked
+/// for beside it.
+pub fn report_of(p: &Project, path: &std::path::Path) -> Result<String> {
+    let (p, check, data) = check_of(p.clone(), path, None)?;
+    let stats: Vec<_> = data.into_iter().map(|d| d.1).collect();
+    crate::export::report::html(&p, &check, &stats, &project::now_utc())
+}
+
+/// [`check_value`] for a project already loaded.
+fn check_of(
+    p: Project,
+    project_path: &std::path::Path,
+    data_file: Option<&std::path::Path>,
+) -> Result<(Project, Value, Vec<DataSet>)> {
+    let a = CheckPaths {
+        project: project_path.to_path_buf(),
+        data: data_file.map(std::path::Path::to_path_buf),
+    };
     let belief = p.belief()?;
     // The data: a file read with the project's mapping, or the stored statistics.
     let data = match &a.data {
@@ -133,10 +187,13 @@ pub fn check(a: &CheckArgs) -> Result<String> {
         out["sensitivity"] = sensitivity_json(&s)?;
     }
     out["checks"] = json!({ "conflict_threshold": p.checks.conflict_threshold });
-    if a.json {
-        return Ok(serde_json::to_string_pretty(&out).unwrap_or_default() + "\n");
-    }
-    Ok(check_table(&p, &out))
+    Ok((p, out, data))
+}
+
+/// The paths a check reads.
+struct CheckPaths {
+    project: std::path::PathBuf,
+    data: Option<std::path::PathBuf>,
 }
 
 /// The sensitivity check as JSON: both sweeps and the comparison table.
@@ -166,6 +223,7 @@ fn sensitivity_json(s: &Sensitivity) -> Result<Value> {
         "level": s.ess.level,
         "ess_sweep": sweep(&s.ess, "factor"),
         "centre_sweep": sweep(&s.centre, "centre"),
+        "centre_elicited": s.centre.elicited,
         "default_alternatives": s.default_alternatives,
         "alternatives": rows,
     }))

@@ -6,6 +6,8 @@
 //! is written as its two lines, σ² then μ | σ². Mixtures are written where the
 //! target can express them and refused with a reason where it cannot.
 
+pub mod report;
+pub mod svg;
 mod targets;
 
 pub use targets::{TARGETS, Target};
