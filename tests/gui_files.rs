@@ -235,3 +235,28 @@ fn the_export_window_shows_the_prior_and_copies_it() {
     h.run();
     assert!(h.query_by_label_contains("copied the Stan prior").is_some());
 }
+
+#[test]
+fn the_report_is_written_from_the_window_and_a_bad_folder_gives_a_notice() {
+    let dir = folder("report");
+    let mut h = example();
+    retitle(&mut h, "Reported from the window");
+    let file = dir.join("workshop.html");
+    h.state_mut().apply(Command::ReportTo(file.clone()));
+    h.run();
+    let html = std::fs::read_to_string(&file).expect("the report was written");
+    assert!(
+        html.contains("<h1>Reported from the window</h1>"),
+        "the unsaved edit is in it"
+    );
+    assert!(html.contains("<h2 id=\"sensitivity\">"));
+    assert!(h.query_by_label_contains("wrote the report").is_some());
+    h.state_mut()
+        .apply(Command::ReportTo("/no/such/folder/r.html".into()));
+    h.run();
+    assert!(
+        h.query_by_label_contains("the report was not written")
+            .is_some()
+    );
+    let _ = std::fs::remove_dir_all(&dir);
+}

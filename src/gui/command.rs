@@ -67,6 +67,10 @@ pub enum Command {
     SetPool(PoolMethod),
     /// Robust-mixture weight (None: off).
     SetRobust(Option<f64>),
+    /// Ask where to write the HTML report.
+    Report,
+    /// Write the HTML report to this file.
+    ReportTo(std::path::PathBuf),
     /// The conflict p-value below which a warning shows.
     SetConflictThreshold(f64),
     /// Switch the model family (every expert starts from a plain prior).

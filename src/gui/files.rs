@@ -18,6 +18,8 @@ pub enum Purpose {
     SaveProject,
     /// Read a data file.
     Data,
+    /// Write the HTML report.
+    Report,
 }
 
 impl Purpose {
@@ -27,6 +29,7 @@ impl Purpose {
             Self::OpenProject => "Project file to open",
             Self::SaveProject => "Save the project as",
             Self::Data => "Data file to read (CSV or TSV)",
+            Self::Report => "Write the report to (an .html file)",
         }
     }
 }
@@ -59,6 +62,10 @@ impl Chooser for NativeChooser {
                 Purpose::Data => d
                     .add_filter("Data (CSV, TSV)", &["csv", "tsv", "tab", "txt"])
                     .pick_file(),
+                Purpose::Report => d
+                    .add_filter("HTML report", &["html"])
+                    .set_file_name("report.html")
+                    .save_file(),
             };
             let _ = tx.send(picked);
         });

@@ -407,6 +407,8 @@ impl Workbench {
             Command::SaveAs => self.choose(Purpose::SaveProject),
             Command::SaveTo(p) => self.save_to(&p),
             Command::ChooseData => self.choose(Purpose::Data),
+            Command::Report => self.choose(Purpose::Report),
+            Command::ReportTo(p) => self.write_report(&p),
             Command::MapData(p) => self.map_data(p),
             Command::ReadData(p, mapping) => self.read_data(&p, mapping),
             Command::ShowExport(t) => self.dialog = Some(Dialog::Export(t)),
@@ -789,6 +791,14 @@ impl Workbench {
                 self.save_to(&path);
             }
             Purpose::Data => self.map_data(path),
+            Purpose::Report => {
+                let path = if path.extension().is_none() {
+                    path.with_extension("html")
+                } else {
+                    path
+                };
+                self.write_report(&path);
+            }
         }
     }
 
@@ -809,6 +819,22 @@ impl Workbench {
                 self.inform(format!("saved {}", path.display()));
             }
             Err(e) => self.error(format!("{e} (nothing was lost: the project is still open)")),
+        }
+    }
+
+    /// Writes the report for the project as it is now (saved or not); data
+    /// files are looked for beside the project's file.
+    fn write_report(&mut self, path: &Path) {
+        let home = self
+            .path
+            .clone()
+            .unwrap_or_else(|| path.with_file_name("unsaved.ron"));
+        match crate::cli::report_of(&self.project, &home)
+            .map_err(|e| e.to_string())
+            .and_then(|html| project::write_atomic(path, &html).map_err(|e| e.to_string()))
+        {
+            Ok(()) => self.inform(format!("wrote the report {}", path.display())),
+            Err(e) => self.error(format!("the report was not written: {e}")),
         }
     }
 

@@ -92,6 +92,13 @@ pub fn show(ui: &mut egui::Ui, w: &mut Workbench) {
                     }
                 }
             });
+            if ui
+                .button("Write a report…")
+                .on_hover_text("One HTML file with the judgments, priors, posterior, sensitivity, conflict check, export lines, notes and cautions")
+                .clicked()
+            {
+                w.queue.push(Command::Report);
+            }
             ui.separator();
             if ui
                 .button("Quit")
