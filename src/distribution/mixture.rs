@@ -95,8 +95,6 @@ impl MixtureLaw {
         if a == b {
             return a;
         }
-        let upper = p > 0.5;
-        let target = if upper { 1.0 - p } else { p };
         let positive = self.positive();
         if positive {
             if a <= 0.0 {
@@ -107,23 +105,30 @@ impl MixtureLaw {
             }
         }
         let to_x = |u: f64| if positive { u.exp() } else { u };
-        let g = |u: f64| {
-            let x = to_x(u);
-            let (lo, up) = self.tails(x);
-            let t = if upper { up } else { lo };
-            let dxdu = if positive { x } else { 1.0 };
-            let slope = self.pdf(x) * dxdu / t;
-            if upper {
-                (target.ln() - t.ln(), slope)
-            } else {
-                (t.ln() - target.ln(), slope)
-            }
-        };
+        let g = |u: f64| self.tail_gap(u, p, positive);
         let (ua, ub) = if positive { (a.ln(), b.ln()) } else { (a, b) };
         let start = hint
             .filter(|h| *h > a && *h < b)
             .map_or(0.5 * (ua + ub), |h| if positive { h.ln() } else { h });
         to_x(increasing_root(g, ua, ub, start, 1e-14))
+    }
+
+    /// The quantile searches' function of u (x = e^u on a positive support,
+    /// else x = u): ln of the smaller-side tail at x against ln of its target,
+    /// signed to increase with u, and its slope.
+    fn tail_gap(&self, u: f64, p: f64, positive: bool) -> (f64, f64) {
+        let upper = p > 0.5;
+        let target = if upper { 1.0 - p } else { p };
+        let x = if positive { u.exp() } else { u };
+        let (lo, up) = self.tails(x);
+        let t = if upper { up } else { lo };
+        let dxdu = if positive { x } else { 1.0 };
+        let slope = self.pdf(x) * dxdu / t;
+        if upper {
+            (target.ln() - t.ln(), slope)
+        } else {
+            (t.ln() - target.ln(), slope)
+        }
     }
 
     /// The p-quantile found by bracketing outward from a nearby value (a
@@ -137,21 +142,7 @@ impl MixtureLaw {
         }
         let positive = self.positive();
         let to_x = |u: f64| if positive { u.exp() } else { u };
-        let upper = p > 0.5;
-        let target = if upper { 1.0 - p } else { p };
-        // ln of the tail against ln of the target, increasing in u.
-        let g = |u: f64| {
-            let x = to_x(u);
-            let (l, r) = self.tails(x);
-            let t = if upper { r } else { l };
-            let dxdu = if positive { x } else { 1.0 };
-            let slope = self.pdf(x) * dxdu / t;
-            if upper {
-                (target.ln() - t.ln(), slope)
-            } else {
-                (t.ln() - target.ln(), slope)
-            }
-        };
+        let g = |u: f64| self.tail_gap(u, p, positive);
         let u0 = if positive { hint.ln() } else { hint };
         let g0 = g(u0).0;
         if !g0.is_finite() {

@@ -228,18 +228,12 @@ fn experts(s: &mut String, project: &Project, check: &Value) {
             s.push_str("<p>No stated probabilities are recorded: the prior was set by hand.</p>");
         } else {
             s.push_str("<table><tr><th>Unknown</th><th>Value</th><th>Stated P(≤ value)</th><th>Fitted</th></tr>");
-            let laws = e.prior.marginals();
             for j in &e.judgments {
-                let law = j
-                    .parameter
-                    .as_ref()
-                    .and_then(|n| laws.iter().find(|m| &m.name == n))
-                    .or(laws.first());
-                let fitted = law.map_or(f64::NAN, |m| m.distribution.tails(j.value).0);
+                let (unknown, fitted) = j.fitted(&e.prior).unwrap_or((String::new(), f64::NAN));
                 let _ = write!(
                     s,
                     "<tr><td>{}</td><td class=\"n\">{}</td><td class=\"n\">{}</td><td class=\"n\">{}</td></tr>",
-                    h(law.map_or("", |m| m.name.as_str())),
+                    h(&unknown),
                     num_f64(j.value),
                     num_f64(j.p),
                     num_f64(fitted)

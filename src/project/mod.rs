@@ -230,6 +230,20 @@ impl MethodRecord {
     }
 }
 
+impl StoredJudgment {
+    /// The unknown the judgment is about (its named one, else the first)
+    /// and P(unknown ≤ value) under `prior`: the "fitted" beside "stated".
+    pub fn fitted(&self, prior: &Prior) -> Option<(String, f64)> {
+        let laws = prior.marginals();
+        let law = self
+            .parameter
+            .as_ref()
+            .and_then(|n| laws.iter().find(|m| &m.name == n))
+            .or(laws.first())?;
+        Some((law.name.clone(), law.distribution.tails(self.value).0))
+    }
+}
+
 /// Pooling choice and its result.
 #[derive(Clone, Debug, PartialEq, serde::Serialize, serde::Deserialize)]
 pub struct Pooling {

@@ -279,24 +279,24 @@ fn quantiles(ui: &mut egui::Ui, w: &mut Workbench, expert: usize) {
     // Stated vs fitted.
     let e = &w.project.experts[expert];
     if !e.judgments.is_empty() {
-        let laws = e.prior.marginals();
         egui::Grid::new("stated vs fitted")
             .striped(true)
             .show(ui, |ui| {
+                ui.label("about");
                 ui.label("value");
                 ui.label("stated p");
                 ui.label("fitted p");
                 ui.end_row();
                 for j in &e.judgments {
-                    let law = j
-                        .parameter
-                        .as_ref()
-                        .and_then(|n| laws.iter().find(|m| &m.name == n))
-                        .or(laws.first());
-                    let fitted = law.map_or(f64::NAN, |m| m.distribution.tails(j.value).0);
+                    let (about, fitted) = match j.fitted(&e.prior) {
+                        Some((n, f)) if f.is_finite() => (n, format!("{f:.3}")),
+                        Some((n, _)) => (n, "–".to_owned()),
+                        None => (String::new(), "–".to_owned()),
+                    };
+                    ui.label(about);
                     ui.label(num(j.value));
                     ui.label(num(j.p));
-                    ui.label(format!("{:.3}", fitted));
+                    ui.label(fitted);
                     ui.end_row();
                 }
             });
