@@ -149,3 +149,20 @@ fn marginal_likelihood_sums_to_one_over_counts() {
         .sum();
     assert!(close(total, 1.0, 1e-13));
 }
+
+#[test]
+fn a_prior_written_as_keys_reads_back_as_the_same_prior() {
+    for (fam, text) in [
+        ("beta-binomial", "alpha=3.26,beta=7.19"),
+        ("gamma-poisson", "alpha=4,beta=2.5"),
+        ("gamma-exponential", "alpha=3,beta=600"),
+        ("normal-known-variance", "mu0=5,kappa0=4,sigma=2"),
+        ("normal-inverse-gamma", "mu0=1,kappa0=2,alpha0=3,beta0=0.5"),
+        ("dirichlet-multinomial", "alpha=2;3;5.5"),
+        ("inverse-gamma-variance", "alpha=4,beta=2,mu=0.1"),
+    ] {
+        let p = priorwright::family::Prior::parse(fam, text).unwrap();
+        let back = priorwright::family::Prior::parse(fam, &p.to_keys()).unwrap();
+        assert_eq!(back, p, "{fam}: {}", p.to_keys());
+    }
+}

@@ -434,3 +434,56 @@ fn with_data_the_window_shows_the_hpd_set_the_sensitivity_table_and_a_threshold_
     h.run();
     assert_eq!(h.state().project.checks.conflict_threshold, 0.05);
 }
+
+#[test]
+fn alternatives_typed_in_the_window_replace_the_defaults_and_bad_ones_give_a_notice() {
+    let path = std::path::Path::new(env!("CARGO_MANIFEST_DIR"))
+        .join("sample-projects/checkout-button.ron");
+    let mut h = common::harness(priorwright::gui::Workbench::open(
+        &path,
+        Box::new(priorwright::gui::files::NoChooser),
+        common::settings(),
+    ));
+    // Tall enough that the sensitivity section is on screen (clipped
+    // widgets take no clicks).
+    h.set_size(egui::vec2(1400.0, 3200.0));
+    h.run();
+    h.get_by_label("Edit the alternatives").click();
+    h.run();
+    assert!(h.state().view.alternatives_open, "the editor opened");
+    assert_eq!(
+        h.state().view.alternatives.len(),
+        3,
+        "the defaults to start from"
+    );
+    h.state_mut().view.alternatives = vec![("flat".into(), "alpha=1,beta=1".into())];
+    h.run();
+    h.get_by_label("Use these alternatives").click();
+    h.run();
+    assert_eq!(h.state().project.checks.alternatives.len(), 1);
+    let post = h.state_mut().derived().posterior.clone().unwrap().unwrap();
+    let table = post.sensitivity.unwrap().table;
+    assert_eq!(table[1].name, "flat");
+    let data = &h.state().project.data[0].statistics;
+    let flat = priorwright::family::Prior::parse("beta-binomial", "alpha=1,beta=1")
+        .unwrap()
+        .update(data)
+        .unwrap();
+    let want = flat.marginals()[0].distribution.mean().unwrap();
+    assert!((table[1].posterior.mean.unwrap() - want).abs() < 1e-12);
+
+    h.state_mut().view.alternatives = vec![("bad".into(), "alpha=-1,beta=1".into())];
+    h.run();
+    h.get_by_label("Use these alternatives").click();
+    h.run();
+    assert!(h.query_by_label_contains("alternative 'bad'").is_some());
+    assert_eq!(
+        h.state().project.checks.alternatives.len(),
+        1,
+        "nothing lost"
+    );
+
+    h.get_by_label("Back to the defaults").click();
+    h.run();
+    assert!(h.state().project.checks.alternatives.is_empty());
+}

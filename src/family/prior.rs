@@ -390,6 +390,35 @@ impl Prior {
         each!(self, p => p.hyperparameters())
     }
 
+    /// The prior as `key=value` text that [`Prior::parse`] reads back to
+    /// the same prior (numbers in shortest round-trip form): for editing.
+    pub fn to_keys(&self) -> String {
+        let mut parts: Vec<String> = self
+            .hyperparameters()
+            .into_iter()
+            .map(|(k, v)| match v {
+                Value::Number(x) => format!("{k}={x}"),
+                Value::List(xs) => format!(
+                    "{k}={}",
+                    xs.iter().map(f64::to_string).collect::<Vec<_>>().join(";")
+                ),
+            })
+            .collect();
+        // Known quantities the parser also needs.
+        match self {
+            Self::NormalKnownVariance(p) if !parts.iter().any(|s| s.starts_with("sigma=")) => {
+                parts.push(format!("sigma={}", p.sigma));
+            }
+            Self::InverseGammaVariance(p) if !parts.iter().any(|s| s.starts_with("mu=")) => {
+                if let Some(mu) = p.mu {
+                    parts.push(format!("mu={mu}"));
+                }
+            }
+            _ => {}
+        }
+        parts.join(",")
+    }
+
     /// Pseudo-observation view.
     pub fn pseudo_observations(&self) -> Vec<(&'static str, Value)> {
         each!(self, p => p.pseudo_observations())

@@ -71,6 +71,9 @@ pub enum Command {
     Report,
     /// Write the HTML report to this file.
     ReportTo(std::path::PathBuf),
+    /// The alternative priors to compare with (empty: the defaults), as
+    /// (name, key=value text) pairs to parse.
+    SetAlternatives(Vec<(String, String)>),
     /// The conflict p-value below which a warning shows.
     SetConflictThreshold(f64),
     /// Switch the model family (every expert starts from a plain prior).

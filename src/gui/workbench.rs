@@ -89,6 +89,10 @@ pub struct View {
     pub observable_future: String,
     /// Rows for the observable-scale judgments.
     pub observable_rows: Vec<super::panels::judgments::Row>,
+    /// Alternative priors being edited: (name, key=value text).
+    pub alternatives: Vec<(String, String)>,
+    /// Whether the alternatives editor is open.
+    pub alternatives_open: bool,
     /// Typed-in data statistics (key=value).
     pub typed_data: String,
     /// Which judgment form is showing.
@@ -118,6 +122,8 @@ impl Default for View {
             observable_future: String::new(),
             observable_rows: Vec::new(),
             typed_data: String::new(),
+            alternatives: Vec::new(),
+            alternatives_open: false,
             method: super::panels::judgments::Method::Quantiles,
             method_note: None,
             recent: Vec::new(),
@@ -699,6 +705,33 @@ impl Workbench {
                     ));
             }
             Command::SetConflictThreshold(t) => self.project.checks.conflict_threshold = t,
+            Command::SetAlternatives(rows) => {
+                let fam = self.project.scenario.family.clone();
+                let names = match &self.project.experts[0].prior {
+                    Prior::DirichletMultinomial(d) => d.names.clone(),
+                    _ => None,
+                };
+                let mut alts = Vec::new();
+                for (i, (name, text)) in rows.iter().enumerate() {
+                    let name = name.trim();
+                    if name.is_empty() {
+                        return Err(format!("alternative {} needs a name", i + 1));
+                    }
+                    let mut prior = Prior::parse(&fam, text)
+                        .map_err(|e| format!("alternative '{name}': {e}"))?;
+                    if let (Prior::DirichletMultinomial(d), Some(n)) = (&mut prior, &names)
+                        && d.alpha.len() == n.len()
+                    {
+                        d.names = Some(n.clone());
+                    }
+                    alts.push(crate::analysis::sensitivity::Alternative {
+                        name: name.to_owned(),
+                        how: "stated in the workshop".to_owned(),
+                        prior,
+                    });
+                }
+                self.project.checks.alternatives = alts;
+            }
             Command::SetTitle(t) => self.project.scenario.title = t,
             Command::SetNotes(t) => self.project.notes = t,
             Command::AddData(d) => {

@@ -1,6 +1,7 @@
 //! How much the posterior rests on the prior: the ESS sweep on a log axis,
 //! the prior-centre sweep, and the posterior under alternative priors.
 
+use super::super::command::Command;
 use super::super::look::{self, Role};
 use super::super::workbench::Workbench;
 use super::num;
@@ -36,6 +37,87 @@ pub fn show(ui: &mut egui::Ui, w: &mut Workbench) {
         sweep_plot(&mut cols[1], "centre sweep", &s.centre, false, dark);
     });
     table(ui, &s);
+    editor(ui, w, &s);
+}
+
+const EDITOR_HELP: &str = "Each row is a prior of this model, written as on the command line. \
+    Saved with the project; the report uses them too.";
+
+/// The alternatives as editable rows: a name and the prior as key=value.
+fn editor(ui: &mut egui::Ui, w: &mut Workbench, s: &Sensitivity) {
+    let open = w.view.alternatives_open;
+    if ui
+        .selectable_label(open, "Edit the alternatives")
+        .on_hover_text("Type your own priors to compare with, or go back to the defaults")
+        .clicked()
+    {
+        w.view.alternatives_open = !open;
+    }
+    if !w.view.alternatives_open {
+        return;
+    }
+    ui.group(|ui| {
+        if w.view.alternatives.is_empty() {
+            w.view.alternatives = s
+                .alternatives
+                .iter()
+                .map(|a| (a.name.clone(), a.prior.to_keys()))
+                .collect();
+        }
+        ui.label(EDITOR_HELP);
+        let mut remove = None;
+        egui::Grid::new("alternative rows").show(ui, |ui| {
+            for (i, (name, text)) in w.view.alternatives.iter_mut().enumerate() {
+                ui.add(egui::TextEdit::singleline(name).desired_width(120.0))
+                    .on_hover_text("A short name for this prior")
+                    .accessible_name(format!("alternative name {}", i + 1));
+                ui.add(egui::TextEdit::singleline(text).desired_width(360.0))
+                    .on_hover_text("Hyperparameters as key=value pairs, e.g. alpha=1,beta=1")
+                    .accessible_name(format!("alternative prior {}", i + 1));
+                if ui
+                    .small_button("remove")
+                    .on_hover_text("Drop this alternative")
+                    .accessible_name(format!("remove alternative {}", i + 1))
+                    .clicked()
+                {
+                    remove = Some(i);
+                }
+                ui.end_row();
+            }
+        });
+        if let Some(i) = remove {
+            w.view.alternatives.remove(i);
+        }
+        ui.horizontal(|ui| {
+            if ui
+                .button("Add an alternative")
+                .on_hover_text("Another prior to compare with")
+                .clicked()
+            {
+                let keys = w.prior().map(|p| p.to_keys()).unwrap_or_default();
+                w.view.alternatives.push((
+                    format!("alternative {}", w.view.alternatives.len() + 1),
+                    keys,
+                ));
+            }
+            if ui
+                .button("Use these alternatives")
+                .on_hover_text("Compare the posterior under these priors (kept in the project)")
+                .clicked()
+            {
+                w.queue
+                    .push(Command::SetAlternatives(w.view.alternatives.clone()));
+            }
+            if ui
+                .button("Back to the defaults")
+                .on_hover_text("Vague, sceptical and enthusiastic, rebuilt from the elicited prior")
+                .clicked()
+            {
+                w.view.alternatives.clear();
+                w.queue.push(Command::SetAlternatives(Vec::new()));
+            }
+        });
+    });
 }
 
 fn sweep_plot(ui: &mut egui::Ui, id: &str, sweep: &Sweep, log: bool, dark: bool) {
