@@ -66,8 +66,9 @@ fn editor(ui: &mut egui::Ui, w: &mut Workbench, s: &Sensitivity) {
         }
         ui.label(EDITOR_HELP);
         let mut remove = None;
-        egui::Grid::new("alternative rows").show(ui, |ui| {
-            for (i, (name, text)) in w.view.alternatives.iter_mut().enumerate() {
+        // Plain rows, not a grid: a grid sizes its text fields to the header.
+        for (i, (name, text)) in w.view.alternatives.iter_mut().enumerate() {
+            ui.horizontal(|ui| {
                 ui.add(egui::TextEdit::singleline(name).desired_width(120.0))
                     .on_hover_text("A short name for this prior")
                     .accessible_name(format!("alternative name {}", i + 1));
@@ -82,9 +83,8 @@ fn editor(ui: &mut egui::Ui, w: &mut Workbench, s: &Sensitivity) {
                 {
                     remove = Some(i);
                 }
-                ui.end_row();
-            }
-        });
+            });
+        }
         if let Some(i) = remove {
             w.view.alternatives.remove(i);
         }
