@@ -383,7 +383,8 @@ fn predictive(s: &mut String, belief: &Belief) {
                 })
                 .collect();
             let refs: Vec<&Law> = laws.iter().map(|(_, l)| l).collect();
-            let range = law_range(&refs);
+            // Waiting times have long tails: the central 98% keeps the bulk readable.
+            let range = law_range_with(&refs, 0.01);
             let pdf = |x: f64| laws.iter().map(|(w, l)| w * l.pdf(x)).sum::<f64>();
             lines.push(Series {
                 name: "prior predictive".into(),

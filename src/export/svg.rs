@@ -96,10 +96,10 @@ fn label(x: f64) -> String {
     if x == 0.0 {
         return "0".to_owned();
     }
-    if x.abs() >= 1e5 || x.abs() < 1e-3 {
+    if x.abs() >= 1e5 || x.abs() < 1e-4 {
         return format!("{x:.1e}");
     }
-    let digits = (3 - x.abs().log10().floor() as i32).clamp(0, 8) as usize;
+    let digits = (3 - x.abs().log10().floor() as i32).clamp(0, 9) as usize;
     let s = format!("{x:.digits$}");
     if s.contains('.') {
         s.trim_end_matches('0').trim_end_matches('.').to_owned()
