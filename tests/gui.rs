@@ -324,14 +324,7 @@ fn the_chips_grid_is_saved_with_the_project_and_comes_back_on_open() {
 
 #[test]
 fn judgments_on_both_unknowns_of_a_normal_inverse_gamma_prior_keep_what_they_are_about() {
-    let path =
-        std::path::Path::new(env!("CARGO_MANIFEST_DIR")).join("sample-projects/tablet-coating.ron");
-    let mut h = common::harness(priorwright::gui::Workbench::open(
-        &path,
-        Box::new(priorwright::gui::files::NoChooser),
-        common::settings(),
-    ));
-    h.run();
+    let mut h = common::sample("tablet-coating");
     let before: Vec<Option<String>> = h.state().project.experts[0]
         .judgments
         .iter()
@@ -358,14 +351,7 @@ fn judgments_on_both_unknowns_of_a_normal_inverse_gamma_prior_keep_what_they_are
 
 #[test]
 fn with_data_the_window_shows_the_hpd_set_the_sensitivity_table_and_a_threshold_warning() {
-    let path = std::path::Path::new(env!("CARGO_MANIFEST_DIR"))
-        .join("sample-projects/checkout-button.ron");
-    let mut h = common::harness(priorwright::gui::Workbench::open(
-        &path,
-        Box::new(priorwright::gui::files::NoChooser),
-        common::settings(),
-    ));
-    h.run();
+    let mut h = common::sample("checkout-button");
     let post = h.state_mut().derived().posterior.clone().unwrap().unwrap();
     let hpd = &post.summary.hpd;
     assert!(hpd.pieces.is_empty(), "one piece here");
@@ -437,13 +423,7 @@ fn with_data_the_window_shows_the_hpd_set_the_sensitivity_table_and_a_threshold_
 
 #[test]
 fn alternatives_typed_in_the_window_replace_the_defaults_and_bad_ones_give_a_notice() {
-    let path = std::path::Path::new(env!("CARGO_MANIFEST_DIR"))
-        .join("sample-projects/checkout-button.ron");
-    let mut h = common::harness(priorwright::gui::Workbench::open(
-        &path,
-        Box::new(priorwright::gui::files::NoChooser),
-        common::settings(),
-    ));
+    let mut h = common::sample("checkout-button");
     // Tall enough that the sensitivity section is on screen (clipped
     // widgets take no clicks).
     h.set_size(egui::vec2(1400.0, 3200.0));

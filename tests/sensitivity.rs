@@ -163,8 +163,7 @@ fn the_times_one_point_is_the_plain_posterior_for_every_sample_project() {
             4,
             "{name}: elicited, vague, sceptical, enthusiastic"
         );
-        // A wider prior lets the data speak: the interval at ×0.1 is wider
-        // than at ×10 unless the prior and data disagree strongly.
+        // The sweep spans the whole ×0.1 to ×10 range.
         let first = s.ess.points.first().unwrap();
         let last = s.ess.points.last().unwrap();
         assert!(first.x < 0.1 + 1e-12 && last.x > 10.0 - 1e-9, "{name}");

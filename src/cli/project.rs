@@ -75,13 +75,9 @@ fn check_of(
     project_path: &std::path::Path,
     data_file: Option<&std::path::Path>,
 ) -> Result<(Project, Value, Vec<DataSet>)> {
-    let a = CheckPaths {
-        project: project_path.to_path_buf(),
-        data: data_file.map(std::path::Path::to_path_buf),
-    };
     let belief = p.belief()?;
     // The data: a file read with the project's mapping, or the stored statistics.
-    let data = match &a.data {
+    let data = match data_file {
         Some(file) => {
             let mapping = p
                 .data
@@ -90,7 +86,7 @@ fn check_of(
                 .ok_or_else(|| {
                     Error::Rule(format!(
                         "{}: the project has no column mapping to read {} with",
-                        a.project.display(),
+                        project_path.display(),
                         file.display()
                     ))
                 })?;
@@ -122,8 +118,7 @@ fn check_of(
         experts.push(v);
     }
     // Data files that have moved: the stored statistics are used, and we say so.
-    let folder = a
-        .project
+    let folder = project_path
         .parent()
         .map(std::path::Path::to_path_buf)
         .unwrap_or_default();
@@ -188,12 +183,6 @@ fn check_of(
     }
     out["checks"] = json!({ "conflict_threshold": p.checks.conflict_threshold });
     Ok((p, out, data))
-}
-
-/// The paths a check reads.
-struct CheckPaths {
-    project: std::path::PathBuf,
-    data: Option<std::path::PathBuf>,
 }
 
 /// The sensitivity check as JSON: both sweeps and the comparison table.

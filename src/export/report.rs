@@ -521,31 +521,23 @@ fn sensitivity(s: &mut String, check: &Value) {
     };
     s.push_str("<h2 id=\"sensitivity\">Sensitivity to the prior</h2>");
     let param = v["parameter"].as_str().unwrap_or("");
-    let sweep = |key: &str, field: &str, log: bool| -> Vec<[f64; 3]> {
-        v[key]
-            .as_array()
-            .into_iter()
-            .flatten()
-            .filter_map(|p| {
-                let x = p[field].as_f64()?;
-                Some([
-                    if log { x.log10() } else { x },
-                    p["lower"].as_f64()?,
-                    p["upper"].as_f64()?,
-                ])
-            })
-            .collect()
-    };
-    let means = |key: &str, field: &str, log: bool| -> Vec<[f64; 2]> {
-        v[key]
-            .as_array()
-            .into_iter()
-            .flatten()
-            .filter_map(|p| {
-                let x = p[field].as_f64()?;
-                Some([if log { x.log10() } else { x }, p["mean"].as_f64()?])
-            })
-            .collect()
+    // One pass over a sweep: (x, mean) for the line, (x, lower, upper) for the band.
+    let read = |key: &str, field: &str, log: bool| -> (Vec<[f64; 2]>, Vec<[f64; 3]>) {
+        let mut line = Vec::new();
+        let mut band = Vec::new();
+        for p in v[key].as_array().into_iter().flatten() {
+            let (Some(x), Some(lo), Some(hi)) =
+                (p[field].as_f64(), p["lower"].as_f64(), p["upper"].as_f64())
+            else {
+                continue;
+            };
+            let x = if log { x.log10() } else { x };
+            band.push([x, lo, hi]);
+            if let Some(m) = p["mean"].as_f64() {
+                line.push([x, m]);
+            }
+        }
+        (line, band)
     };
     let _ = write!(
         s,
@@ -566,18 +558,19 @@ fn sensitivity(s: &mut String, check: &Value) {
             format!("prior centre of {param}"),
         ),
     ] {
+        let (line, band) = read(key, field, log);
         let plot = Plot {
             title: format!("Posterior of {param} against the {xl}"),
             x_label: xl,
             y_label: param.to_owned(),
             series: vec![Series {
                 name: "posterior mean".into(),
-                points: means(key, field, log),
+                points: line,
                 bold: true,
             }],
             bands: vec![Band {
                 name: "95% interval".into(),
-                points: sweep(key, field, log),
+                points: band,
             }],
             marks: match (log, v["centre_elicited"].as_f64()) {
                 (true, _) => vec![(0.0, "elicited".into())],

@@ -44,6 +44,15 @@ pub fn example() -> Harness<'static, Workbench> {
     h
 }
 
+/// The workbench on one of the bundled sample projects.
+pub fn sample(name: &str) -> Harness<'static, Workbench> {
+    let path = std::path::Path::new(env!("CARGO_MANIFEST_DIR"))
+        .join(format!("sample-projects/{name}.ron"));
+    let mut h = harness(Workbench::open(&path, Box::new(NoChooser), settings()));
+    h.run();
+    h
+}
+
 pub fn centre(h: &Harness<'_, Workbench>) -> f64 {
     dials::setting(h.state().prior().unwrap(), Dial::Main).centre
 }
